@@ -1,0 +1,14 @@
+// `quern profile`: placeholder until its issue lands; replace the whole file.
+import type { Command } from 'commander';
+import { QuernError } from '../../src/index.js';
+import type { CommandContext } from '../program.js';
+
+export function registerProfile(program: Command, _ctx: CommandContext): void {
+  program
+    .command('profile')
+    .description('(not built yet)')
+    .allowUnknownOption(true)
+    .action(() => {
+      throw new QuernError('E_INTERNAL', 'quern profile is not built yet');
+    });
+}

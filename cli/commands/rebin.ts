@@ -1,0 +1,14 @@
+// `quern rebin`: placeholder until its issue lands; replace the whole file.
+import type { Command } from 'commander';
+import { QuernError } from '../../src/index.js';
+import type { CommandContext } from '../program.js';
+
+export function registerRebin(program: Command, _ctx: CommandContext): void {
+  program
+    .command('rebin')
+    .description('(not built yet)')
+    .allowUnknownOption(true)
+    .action(() => {
+      throw new QuernError('E_INTERNAL', 'quern rebin is not built yet');
+    });
+}

@@ -1,0 +1,17 @@
+#!/usr/bin/env node
+// The only file that touches `process`: binds the CLI to the real streams and exits with run()'s status.
+import { run } from './program.js';
+
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code === 'EPIPE') process.exit(0);
+  throw e;
+});
+
+const status = await run(process.argv.slice(2), {
+  stdout: process.stdout,
+  stderr: process.stderr,
+  stdin: process.stdin,
+  env: process.env,
+  cwd: process.cwd(),
+});
+process.exitCode = status;
