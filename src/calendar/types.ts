@@ -8,7 +8,7 @@ export type UnitName =
   | 'minute'
   | 'hour'
   | 'day'
-  | 'week' // weeks starting on `weekStart` (ISO weekday number), numbered as in `week-start` year rule below
+  | 'week' // weeks starting on `weekStart` (ISO weekday number), numbered by the January-4 rule: week 1 holds January 4
   | 'iso-week' // ISO 8601 week of the ISO week-year, Monday start, week 1 holds January 4
   | 'epi-week' // epidemiological week: Sunday start, week 1 is the first week with >= 4 days in the year
   | 'month'
