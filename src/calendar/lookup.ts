@@ -4,11 +4,11 @@
 // rule in time/zone.ts: skipped times move forward by the gap, repeated times take the earlier instant).
 import { QuernError } from '../errors.js';
 import { getZone, type Zone } from '../time/zone.js';
+import { parseTimeText } from '../time/text.js';
 import { makeCalendar } from './calendar.js';
 import { detectLabelNotation } from './detect-label.js';
 import { formatDate, formatWallDateTime } from './labels.js';
 import { readDate } from './label-parse.js';
-import { weekStartDay } from './date-scheme.js';
 import { isoWeekday } from './civil.js';
 import type { Calendar, CalendarOptions, FiscalStart, Period, PeriodParts, UnitName } from './types.js';
 
@@ -47,8 +47,6 @@ export interface PeriodLookup {
   notes: string[];
 }
 
-const DATETIME = /^(\d{4})-(\d{2})-(\d{2})[T ](\d{2}):(\d{2})(?::(\d{2})(?:[.,](\d{1,9}))?)?(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
-const WEEK_DATE = /^(\d{4})-?W(\d{2})-?([1-7])$/i;
 
 /** Looks up the period of `options.unit` (or of the unit VALUE's notation names) that holds VALUE. */
 export function lookupPeriod(value: string, options: LookupOptions = {}): PeriodLookup {
@@ -125,20 +123,11 @@ function readValue(text: string, options: LookupOptions, zone: Zone, notes: stri
     if (options.unit === undefined) return { ms: p.start, period: p, calendar: cal, readAs, unit: notation.unit };
     return { ms: p.start, readAs, unit: notation.unit };
   }
-  const wd = WEEK_DATE.exec(text);
-  if (wd) {
-    const dn = weekStartDay(Number(wd[1]), Number(wd[2]), 1) + Number(wd[3]) - 1; // ISO 8601 week date
-    return { ms: zone.startOfWall(dn * DAY), readAs: 'date', unit: 'day' };
-  }
-  const m = DATETIME.exec(text);
-  if (!m) {
-    throw new QuernError(
-      'E_VALUE',
-      `cannot read ${JSON.stringify(text)} as a date, a date-time or a period label`,
-      'write 2025-01-01, 2024-03-10T08:15, 2024-03-10T08:15-05:00, or a label such as 2024-EW07, 2024-W07, FY2024-Q1',
-    );
-  }
-  return readDateTime(text, m, zone, notes);
+  // Dates, week dates and date-times are read by the one time-value parser (src/time).
+  const t = parseTimeText(text);
+  if (t.kind === 'instant') return { ms: t.ms, readAs: 'instant' };
+  if (t.kind === 'period') return { ms: zone.startOfWall(t.ms), readAs: 'date', unit: t.unit ?? 'day' };
+  return placeWallTime(text, t.ms, zone, notes);
 }
 
 const RE_PLAIN_DATE = /^\d{4}-\d{2}-\d{2}$/;
@@ -148,20 +137,8 @@ function weekdayOf(date: string): number {
   return typeof dn === 'number' ? isoWeekday(dn) : 1;
 }
 
-function readDateTime(text: string, m: RegExpExecArray, zone: Zone, notes: string[]): ReadValue {
-  const dn = readDate(Number(m[1]), Number(m[2]), Number(m[3]));
-  const h = Number(m[4]);
-  const mi = Number(m[5]);
-  const s = m[6] === undefined ? 0 : Number(m[6]);
-  const frac = m[7] === undefined ? 0 : Math.floor(Number(`0.${m[7]}`) * 1000);
-  if (typeof dn === 'string' || h > 23 || mi > 59 || s > 59) {
-    throw new QuernError('E_VALUE', `${JSON.stringify(text)} is not a real date-time: ${typeof dn === 'string' ? dn : 'the time of day is out of range'}`, 'write it as YYYY-MM-DDTHH:MM[:SS][±HH:MM]');
-  }
-  const wall = dn * DAY + h * 3_600_000 + mi * 60_000 + s * 1000 + frac;
-  if (m[8] !== undefined) {
-    const off = m[8].toUpperCase() === 'Z' ? 0 : offsetMs(m[8]);
-    return { ms: wall - off, readAs: 'instant' };
-  }
+/** Places a wall-clock reading in the zone by the one rule of time/zone.ts, noting a skipped or repeated time. */
+function placeWallTime(text: string, wall: number, zone: Zone, notes: string[]): ReadValue {
   const first = zone.fromWall(wall, 'earlier');
   const last = zone.fromWall(wall, 'later');
   const ms = zone.fromWall(wall, 'compatible');
@@ -171,15 +148,6 @@ function readDateTime(text: string, m: RegExpExecArray, zone: Zone, notes: strin
     notes.push(`${text} happens twice in ${zone.name}; the earlier, ${isoWithOffset(zone, first)}, is used`);
   }
   return { ms, readAs: 'local' };
-}
-
-function offsetMs(text: string): number {
-  const sign = text[0] === '-' ? -1 : 1;
-  const digits = text.slice(1).replace(':', '');
-  const h = Number(digits.slice(0, 2));
-  const mi = digits.length > 2 ? Number(digits.slice(2, 4)) : 0;
-  if (h > 18 || mi > 59) throw new QuernError('E_VALUE', `bad offset ${text}`, 'write offsets as ±HH:MM, e.g. -05:00');
-  return sign * (h * 60 + mi) * 60_000;
 }
 
 /** "7 days", "23 hours", "1 day (25 hours)", "15 minutes". */
