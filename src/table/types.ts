@@ -3,6 +3,9 @@ import type { Diagnostic } from '../errors.js';
 
 export type TableFormat = 'csv' | 'tsv' | 'ndjson';
 
+/** Which CSV tokenizer reads the rows: the byte-level fast path, or csv-parse as the reference. */
+export type TableEngine = 'fast' | 'reference';
+
 export interface TableOptions {
   /** Field delimiter; sniffed among comma, semicolon, tab and pipe when absent. */
   delimiter?: string;
@@ -14,6 +17,15 @@ export interface TableOptions {
   maxExamples?: number;
   /** The stream to read when the file is '-'. */
   stdin?: NodeJS.ReadableStream;
+  /** CSV/TSV tokenizer; default 'fast'. 'reference' reads through csv-parse (slower, independent). */
+  engine?: TableEngine;
+  /** Called as input is read: bytes read from the file (compressed bytes for gzip) and the file size
+   *  when known (undefined for standard input). */
+  onProgress?: (bytesRead: number, totalBytes: number | undefined) => void;
+  /** Folder against which a relative file name is resolved; default the process's working folder. */
+  cwd?: string;
+  /** Bytes per read from the file; default 1 MiB. */
+  chunkSize?: number;
 }
 
 /** A batch of rows restricted to the requested columns. values[c][i] is row i of requested column c. */
@@ -27,13 +39,33 @@ export interface ColumnBatch {
 /** Row accounting of one read: every row is read and then either passed on or rejected. */
 export interface ReadSummary {
   file: string;
-  /** Data rows read (header excluded), passed on plus rejected. */
+  /** Data rows read (header excluded), passed on plus rejected. Blank lines are not rows. */
   rowsRead: number;
+  /** Data rows passed on in batches; rowsRead === rowsPassed + rowsRejected. */
+  rowsPassed: number;
   rowsRejected: number;
+  /** Rejected rows counted by reason: 'ragged-row', 'undecodable-bytes', 'unterminated-quote',
+   *  'bad-quote', 'bad-json', 'not-an-object'. */
   rejectedByReason: Record<string, number>;
   /** The first few rejected rows, with line and reason. */
   examples: Diagnostic[];
+  /** Bytes read from the file as stored (compressed bytes for gzip). */
   bytesRead: number;
+  /** Bytes after decompression (equal to bytesRead for plain files). */
+  bytesDecoded: number;
+  /** Completely empty physical lines (no byte between two line ends), skipped and counted here;
+   *  they are not data rows. A line holding only spaces, or `""`, is a data row. */
+  blankLines: number;
+  /** Physical lines in the input, header and blank lines included (CRLF, LF and lone CR each end one). */
+  lines: number;
+  /** NDJSON only: keys absent from the header (the first object's keys), with how many rows held each.
+   *  Such rows are passed on; the unknown keys' values are not read. */
+  unknownKeys: Record<string, number>;
+  format: TableFormat;
+  delimiter: string;
+  engine: TableEngine;
+  /** True once `batches` has been read to the end. */
+  complete: boolean;
 }
 
 /** An open table: its header is known; its rows are read once through `batches`. */
@@ -42,10 +74,15 @@ export interface TableReader {
   readonly header: readonly string[];
   readonly format: TableFormat;
   readonly delimiter: string;
+  readonly engine: TableEngine;
+  /** Size of the input file in bytes as stored; undefined for standard input. */
+  readonly totalBytes: number | undefined;
   /** Index of a column; throws QuernError 'E_COLUMN' listing the columns and the nearest spelling. */
   columnIndex(name: string): number;
   /** Streams the named columns once, in batches. */
   batches(columns: readonly string[]): AsyncIterable<ColumnBatch>;
   /** Row accounting; complete once `batches` has been read to the end. */
   summary(): ReadSummary;
+  /** Releases the file when the caller stops before the end of `batches`. */
+  close(): void;
 }

@@ -1,0 +1,199 @@
+// Output targets that lose nothing and leave no half-written file: a file is written to a temporary
+// file in the same folder and renamed over the target only on commit(); standard output ends quietly
+// when the reader goes away (EPIPE).
+import { randomBytes } from 'node:crypto';
+import { unlinkSync } from 'node:fs';
+import { chmod, open, rename, stat, unlink, type FileHandle } from 'node:fs/promises';
+import { basename, dirname, join, resolve } from 'node:path';
+import { QuernError } from '../errors.js';
+
+/** Where a command writes its result. */
+export interface OutputTarget {
+  /** The target as the user named it ('-' for standard output). */
+  readonly path: string;
+  /** True once the reader of standard output has gone away; later writes are dropped. */
+  readonly closed: boolean;
+  /** Queues text; resolves when it may continue (after a flush when the buffer is full). */
+  write(text: string): Promise<void>;
+  /** Flushes and, for a file, moves the temporary file over the target. */
+  commit(): Promise<void>;
+  /** Discards everything written; an existing target file is left as it was. Safe to call twice. */
+  abort(): Promise<void>;
+}
+
+/** The parts of a stream openOutput uses: CliIO's stdout, or a Node Writable. */
+export interface StdoutLike {
+  write(text: string, cb?: (err?: Error | null) => void): unknown;
+  once?(event: 'drain' | 'close' | 'error', listener: (...args: never[]) => void): unknown;
+  removeListener?(event: 'drain' | 'close' | 'error', listener: (...args: never[]) => void): unknown;
+  on?(event: 'error', listener: (err: NodeJS.ErrnoException) => void): unknown;
+}
+
+export interface OutputOptions {
+  /** Required when path is '-'. */
+  stdout?: StdoutLike;
+  /** Folder against which a relative path is resolved; default the process's working folder. */
+  cwd?: string;
+}
+
+const FLUSH_AT = 1 << 16;
+// Temporary files of outputs not yet committed or aborted, so an interrupted run can remove them.
+const uncommitted = new Map<OutputTarget, string>();
+
+/** Aborts every file output not yet committed; for a signal handler (Ctrl-C) in the CLI's entry file. */
+export async function abortOpenOutputs(): Promise<void> {
+  await Promise.all([...uncommitted.keys()].map((o) => o.abort()));
+}
+
+/** Deletes the temporary files of uncommitted outputs at once; for a process 'exit' handler. */
+export function abortOpenOutputsSync(): void {
+  for (const temp of uncommitted.values()) {
+    try {
+      unlinkSync(temp);
+    } catch {
+      // already gone
+    }
+  }
+  uncommitted.clear();
+}
+
+/** Opens '-' (standard output) or a file for atomic writing; throws QuernError('E_OUTPUT') when it cannot. */
+export async function openOutput(path: string, options: OutputOptions = {}): Promise<OutputTarget> {
+  if (path === '-') {
+    if (options.stdout === undefined) throw new QuernError('E_USAGE', 'output "-" means standard output, but no output stream was given');
+    return stdoutTarget(options.stdout);
+  }
+  return fileTarget(path, resolve(options.cwd ?? process.cwd(), path));
+}
+
+function isPipeClosed(e: unknown): boolean {
+  const code = (e as NodeJS.ErrnoException | null)?.code;
+  return code === 'EPIPE' || code === 'ERR_STREAM_DESTROYED' || code === 'ERR_STREAM_WRITE_AFTER_END';
+}
+
+/** Resolves on 'drain', or when the stream closes or fails (a dead pipe never drains). */
+function drained(out: StdoutLike): Promise<void> {
+  const { once, removeListener } = out;
+  if (once === undefined) return Promise.resolve();
+  return new Promise<void>((res) => {
+    const done = (): void => {
+      for (const ev of ['drain', 'close', 'error'] as const) removeListener?.call(out, ev, done);
+      res();
+    };
+    for (const ev of ['drain', 'close', 'error'] as const) once.call(out, ev, done);
+  });
+}
+
+function stdoutTarget(out: StdoutLike): OutputTarget {
+  let closed = false;
+  let pending = '';
+  out.on?.('error', (e) => {
+    if (isPipeClosed(e)) closed = true;
+  });
+  async function flush(): Promise<void> {
+    if (closed || pending === '') return;
+    const text = pending;
+    pending = '';
+    try {
+      const ok = out.write(text, (e) => {
+        if (e && isPipeClosed(e)) closed = true;
+      });
+      if (ok === false) await drained(out);
+    } catch (e) {
+      if (!isPipeClosed(e)) throw new QuernError('E_OUTPUT', `standard output: ${(e as Error).message}`);
+      closed = true;
+    }
+  }
+  return {
+    path: '-',
+    get closed() {
+      return closed;
+    },
+    async write(text) {
+      if (closed) return;
+      pending += text;
+      if (pending.length >= FLUSH_AT) await flush();
+    },
+    commit: flush,
+    async abort() {
+      pending = '';
+    },
+  };
+}
+
+function outputError(path: string, e: unknown): QuernError {
+  if (e instanceof QuernError) return e;
+  const code = (e as NodeJS.ErrnoException).code;
+  const reason =
+    code === 'ENOENT' ? 'its folder does not exist'
+    : code === 'EACCES' || code === 'EPERM' ? 'permission denied'
+    : code === 'EISDIR' ? 'is a folder'
+    : code === 'ENOSPC' ? 'the disk is full'
+    : `cannot be written (${code ?? (e as Error).message})`;
+  return new QuernError('E_OUTPUT', `${path}: ${reason}`);
+}
+
+async function fileTarget(shown: string, target: string): Promise<OutputTarget> {
+  let mode: number | undefined;
+  try {
+    const st = await stat(target);
+    if (st.isDirectory()) throw new QuernError('E_OUTPUT', `${shown}: is a folder, not a file`);
+    mode = st.mode & 0o7777;
+  } catch (e) {
+    if ((e as NodeJS.ErrnoException).code !== 'ENOENT') throw outputError(shown, e);
+  }
+  const temp = join(dirname(target), `.${basename(target)}.${randomBytes(6).toString('hex')}.quern-tmp`);
+  let handle: FileHandle;
+  try {
+    handle = await open(temp, 'wx', 0o666);
+    if (mode !== undefined) await chmod(temp, mode);
+  } catch (e) {
+    throw outputError(shown, e);
+  }
+  let pending = '';
+  let state: 'open' | 'committed' | 'aborted' = 'open';
+  async function flush(): Promise<void> {
+    if (pending === '') return;
+    const text = pending;
+    pending = '';
+    try {
+      await handle.write(text);
+    } catch (e) {
+      await target_.abort();
+      throw outputError(shown, e);
+    }
+  }
+  const target_: OutputTarget = {
+    path: shown,
+    closed: false,
+    async write(text) {
+      if (state !== 'open') throw new QuernError('E_INTERNAL', `${shown}: written after ${state === 'committed' ? 'commit' : 'abort'}`);
+      pending += text;
+      if (pending.length >= FLUSH_AT) await flush();
+    },
+    async commit() {
+      if (state !== 'open') return;
+      await flush();
+      try {
+        await handle.sync();
+        await handle.close();
+        await rename(temp, target);
+      } catch (e) {
+        await target_.abort();
+        throw outputError(shown, e);
+      }
+      state = 'committed';
+      uncommitted.delete(target_);
+    },
+    async abort() {
+      if (state !== 'open') return;
+      state = 'aborted';
+      uncommitted.delete(target_);
+      pending = '';
+      await handle.close().catch(() => undefined);
+      await unlink(temp).catch(() => undefined);
+    },
+  };
+  uncommitted.set(target_, temp);
+  return target_;
+}
