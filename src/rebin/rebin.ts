@@ -1,0 +1,155 @@
+// rebin: events (or source periods) of a table into calendar periods, per group, with aggregates and the
+// empty periods filled. Streams the table once; memory grows with periods × groups, not with rows.
+import { makeCalendar } from '../calendar/index.js';
+import type { Calendar } from '../calendar/types.js';
+import { QuernError } from '../errors.js';
+import type { ColumnBatch, TableReader } from '../table/types.js';
+import { getZone } from '../time/zone.js';
+import type { Zone } from '../time/zone.js';
+import { CellStore, DEFAULT_LIMITS } from './accumulate.js';
+import { aggColumns, parseAggSpecs } from './aggregates.js';
+import type { AggSpec } from './aggregates.js';
+import { checkFill, defaultMaxPeriods, fillRange } from './fill.js';
+import { GroupIndex } from './groups.js';
+import { LocalResolver } from './local-time.js';
+import { makeMeasureReaders, measureNeeds } from './measures.js';
+import { refuseNonAdditive } from './period-source.js';
+import { buildRows, occupiedKeys } from './rows.js';
+import { RebinScan } from './scan.js';
+import type { ScanSetup } from './scan.js';
+import { timeHints, timeReading } from './time-column.js';
+import type { RebinOptions, RebinResult, RebinSummary } from './types.js';
+
+/** Values of the time column sampled to infer its format. */
+const SAMPLE = 2000;
+
+/**
+ * Rebins the rows of `reader` into periods of `options.calendar`: each row's time is parsed (offsets
+ * honoured, wall-clock readings placed in the zone by quern's one rule), floored with the calendar, and
+ * added to its (period, group) cell. Data problems are counted in the summary; misuse throws QuernError.
+ */
+export async function rebin(reader: TableReader, options: RebinOptions): Promise<RebinResult> {
+  const aggs = [...(options.aggregates ?? parseAggSpecs([]))];
+  if (options.assign === 'apportion') refuseNonAdditive(aggs);
+  const cal = makeCalendar(options.calendar);
+  const zone = getZone(cal.zone);
+  const by = [...(options.by ?? [])];
+  checkOutputNames(by, aggs);
+  const measureCols = aggColumns(aggs);
+  const columns = uniqueColumns(reader, [options.time, ...by, ...measureCols]);
+  const slot = (name: string): number => columns.indexOf(name);
+  const needs = measureNeeds(measureCols, aggs);
+  const store = new CellStore(needs, { ...DEFAULT_LIMITS, ...options.limits });
+  const groups = new GroupIndex(by.length);
+  if (by.length === 0) groups.idOf1('');
+  const resolver = new LocalResolver(zone);
+  let scan: RebinScan | null = null;
+  let setup: ScanSetup | null = null;
+  for await (const b of reader.batches(columns)) {
+    if (scan === null) {
+      setup = makeSetup(reader, options, cal, b, slot, by, measureCols, needs, store, groups, resolver);
+      scan = new RebinScan(setup, (ms) => zone.toWall(ms));
+    }
+    scan.batch(b);
+  }
+  if (scan === null || setup === null) {
+    setup = makeSetup(reader, options, cal, { length: 0, lines: [], values: columns.map(() => []) }, slot, by, measureCols, needs, store, groups, resolver);
+    scan = new RebinScan(setup, (ms) => zone.toWall(ms));
+  }
+  return finish(reader, options, cal, zone, setup, scan, aggs, by, measureCols);
+}
+
+// After the scan: the policy check, the fill range and its guard, the rows and the summary.
+function finish(reader: TableReader, options: RebinOptions, cal: Calendar, zone: Zone, setup: ScanSetup, scan: RebinScan,
+  aggs: readonly AggSpec[], by: readonly string[], measureCols: readonly string[]): RebinResult {
+  scan.requirePolicy();
+  const { store, groups } = setup;
+  const c = scan.counts;
+  const fill = options.fill ?? true;
+  const range = fill ? fillRange(c.extremes, setup.fromKey, setup.untilKey) : null;
+  if (range !== null) {
+    const explicit = setup.fromKey !== null && setup.untilKey !== null;
+    checkFill(range, occupiedKeys(store), c.extremes, options.maxPeriods ?? defaultMaxPeriods(cal.unit, cal.step), cal, explicit);
+  }
+  const measureOf = aggs.map((a) => (a.column === null ? -1 : measureCols.indexOf(a.column)));
+  const quantileType = options.quantileType ?? 7;
+  const rows = fill && range === null ? [] : buildRows({ cal, zone, store, groups, aggs, measureOf, quantileType, range });
+  const summary = summarize(reader, options, setup, scan, rows.filter((r) => r.filled).length);
+  summary.periods = range !== null ? range.last - range.first + 1 : occupiedKeys(store).length;
+  return {
+    unit: cal.unit, step: cal.step, zone: cal.zone, weekStart: cal.weekStart, fiscalStart: { ...cal.fiscalStart },
+    fiscalLabel: cal.fiscalLabel, quantileType,
+    columns: ['period', 'start', 'end', ...by, ...aggs.map((a) => a.name)],
+    groupColumns: [...by], aggregates: aggs.map((a) => a.name), rows, summary,
+  };
+}
+
+function checkOutputNames(by: readonly string[], aggs: readonly AggSpec[]): void {
+  const seen = new Set(['period', 'start', 'end']);
+  for (const name of [...by, ...aggs.map((a) => a.name)]) {
+    if (seen.has(name)) {
+      throw new QuernError('E_USAGE', `two output columns would be named ${JSON.stringify(name)}`, 'give each --by column once, and rename an input column that is called period, start or end');
+    }
+    seen.add(name);
+  }
+}
+
+function uniqueColumns(reader: TableReader, names: readonly string[]): string[] {
+  const out: string[] = [];
+  for (const n of names) {
+    reader.columnIndex(n); // throws E_COLUMN with the nearest spelling
+    if (!out.includes(n)) out.push(n);
+  }
+  return out;
+}
+
+function makeSetup(reader: TableReader, o: RebinOptions, cal: Calendar, first: ColumnBatch,
+  slot: (n: string) => number, by: readonly string[], measureCols: readonly string[], needs: ReturnType<typeof measureNeeds>,
+  store: CellStore, groups: GroupIndex, resolver: LocalResolver): ScanSetup {
+  const sample = (s: number): readonly string[] => first.values[s]!.slice(0, SAMPLE);
+  const time = timeReading(sample(0), o.timeFormat ?? null, { ...timeHints(o.time, o.dayOrder), fiscalStart: cal.fiscalStart, fiscalLabel: cal.fiscalLabel });
+  const measures = makeMeasureReaders(measureCols, needs, measureCols.map(slot), sample);
+  const source = o.sourceUnit ? { cal: makeCalendar({ ...o.calendar, unit: o.sourceUnit, step: 1 }), anchor: o.sourceAnchor ?? 'start' } : null;
+  return {
+    file: reader.file, timeColumn: o.time, cal, time, resolver, store, groups, bySlots: by.map(slot), measures,
+    fromKey: o.from == null ? null : cal.index(o.from), untilKey: o.until == null ? null : cal.index(o.until),
+    assign: o.assign ?? null, source, maxExamples: o.maxExamples ?? 5,
+  };
+}
+
+function summarize(reader: TableReader, o: RebinOptions, setup: ScanSetup, scan: RebinScan, filled: number): RebinSummary {
+  const t = reader.summary();
+  const c = scan.counts;
+  const rejectedByReason: Record<string, number> = { ...t.rejectedByReason };
+  for (const [k, v] of Object.entries(c.rejectedByReason)) rejectedByReason[k] = (rejectedByReason[k] ?? 0) + v;
+  const notes: string[] = [];
+  if (o.calendar.zone === undefined && c.offsets.size > 0) {
+    const offs = [...c.offsets].map(offsetWords).join(', ');
+    notes.push(`the values carry offsets (${offs}) but periods were cut in UTC; pass --zone to cut them in local time`);
+  }
+  if (setup.time.kind === 'local' && o.calendar.zone === undefined) {
+    notes.push('the values carry no offset and were read as wall-clock time in UTC; pass --zone to read them in a zone');
+  }
+  const summary: RebinSummary = {
+    file: reader.file, rowsRead: t.rowsRead, rowsUsed: c.used, rowsEmpty: c.empty, rowsRejected: t.rowsRejected + c.rejected,
+    rejectedByReason, rowsOutside: c.outside, examples: [...t.examples, ...c.examples].slice(0, o.maxExamples ?? 5),
+    periods: 0, groups: setup.groups.size, filledRows: filled,
+    localTime: { ...setup.resolver.counts, rule: 'a skipped reading moves forward by the gap; a repeated one takes the earlier instant' },
+    timeFormat: { id: setup.time.id, label: setup.time.label, kind: setup.time.kind },
+    sourcePeriods: c.periodRows > 0 ? { unit: c.sourceUnit, rows: c.periodRows, straddling: c.straddling, policy: setup.assign } : null,
+    measures: setup.measures.map((m) => ({ ...m.summary, rejectedByReason: { ...m.summary.rejectedByReason } })),
+    notes,
+  };
+  const sum = summary.rowsUsed + summary.rowsEmpty + summary.rowsRejected + summary.rowsOutside;
+  if (sum !== summary.rowsRead) {
+    throw new QuernError('E_INTERNAL', `row accounting is off: ${sum} rows placed, empty, rejected or outside, but ${summary.rowsRead} read`);
+  }
+  return summary;
+}
+
+function offsetWords(minutes: number): string {
+  const sign = minutes < 0 ? '-' : '+';
+  const a = Math.abs(minutes);
+  return `${sign}${String(Math.floor(a / 60)).padStart(2, '0')}:${String(a % 60).padStart(2, '0')}`;
+}
+
