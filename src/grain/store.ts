@@ -1,0 +1,90 @@
+// The distinct values of one date column, exact up to a cap. Memory grows with distinct values, never rows:
+// past the cap the store hands its contents to a streaming boundary counter and a HyperLogLog sketch, keeps
+// a reservoir sample for the zone search, and from then on only counts.
+import { HyperLogLog } from '../profile/hll.js';
+import { BoundaryCounter } from './counter.js';
+import type { TimedValue } from './zones.js';
+
+/** Distinct values kept exactly per column (then counted in a sketch). */
+export const DISTINCT_CAP = 100_000;
+/** Size of the uniform reservoir sample (Vitter's algorithm R) kept once the cap is passed. */
+export const RESERVOIR_SIZE = 1_024;
+
+/** One distinct value: its key (epoch ms for instants, wall-clock ms otherwise) and its first row. */
+export interface StoredValue extends TimedValue {
+  /** Wall-clock ms as written: ms plus the written offset for instants, ms itself otherwise. */
+  wall: number;
+}
+
+export class DistinctStore {
+  /** Exact distinct values in order of first appearance; null once the cap was passed. */
+  values: Map<number, StoredValue> | null = new Map();
+  /** Counter of the as-written wall clock, started when the cap is passed. */
+  stream: BoundaryCounter | null = null;
+  sketch: HyperLogLog | null = null;
+  reservoir: StoredValue[] = [];
+  private seen = 0;
+  private rng = 0x2545f491;
+
+  constructor(private readonly cap = DISTINCT_CAP) {}
+
+  /** Adds one parsed value. */
+  add(ms: number, offset: number, line: number, text: string): void {
+    const wall = Number.isNaN(offset) ? ms : ms + offset * 60_000;
+    const map = this.values;
+    if (map !== null) {
+      const hit = map.get(ms);
+      if (hit !== undefined) {
+        hit.weight++;
+        return;
+      }
+      if (map.size < this.cap) {
+        map.set(ms, { ms, offset, weight: 1, line, text, wall });
+        return;
+      }
+      this.overflow(map);
+    }
+    this.stream!.add(wall, 1, false, line, text);
+    this.sketch!.addNumber(ms);
+    const slot = this.slot();
+    if (slot >= 0) this.reservoir[slot] = { ms, offset, weight: 1, line, text, wall };
+  }
+
+  /** Exact number of distinct values, or the sketch's estimate past the cap. */
+  distinctCount(): { count: number; exact: boolean } {
+    if (this.values !== null) return { count: this.values.size, exact: true };
+    return { count: this.sketch!.estimate(), exact: false };
+  }
+
+  private overflow(map: Map<number, StoredValue>): void {
+    this.stream = new BoundaryCounter();
+    this.sketch = new HyperLogLog();
+    for (const v of map.values()) {
+      this.stream.add(v.wall, v.weight, false, v.line, v.text);
+      this.sketch.addNumber(v.ms);
+      for (let i = 0; i < v.weight; i++) {
+        const slot = this.slot();
+        if (slot >= 0) this.reservoir[slot] = { ...v, weight: 1 };
+      }
+    }
+    this.values = null;
+  }
+
+  /** Reservoir slot for the next row (Vitter's algorithm R), or -1 when the row is not kept. */
+  private slot(): number {
+    this.seen++;
+    if (this.reservoir.length < RESERVOIR_SIZE) return this.reservoir.length;
+    const j = this.random() % this.seen;
+    return j < RESERVOIR_SIZE ? j : -1;
+  }
+
+  /** xorshift32: a fixed-seed generator, so runs are repeatable. */
+  private random(): number {
+    let x = this.rng;
+    x ^= x << 13;
+    x ^= x >>> 17;
+    x ^= x << 5;
+    this.rng = x >>> 0;
+    return this.rng;
+  }
+}
