@@ -1,0 +1,103 @@
+// Counting a column into buckets: every value is bucketed, below, above, between buckets, empty or
+// invalid, with a few examples of each, so the summary adds up to the rows read.
+import type { ParsedNumber } from '../numbers/index.js';
+import { ABOVE, BELOW, makeBucketer, type Bucketer } from './bucketer.js';
+import type { BucketSet, ClosedSide, MergedEdge } from './types.js';
+
+export interface BucketExample { line: number; value: string }
+export interface Outcome { count: number; examples: BucketExample[] }
+
+export interface BucketCount {
+  index: number; label: string; name?: string; weight?: number;
+  low: number | null; high: number | null; lowClosed: boolean; highClosed: boolean;
+  count: number;
+  /** count / bucketed values (0 when none). */
+  share: number;
+}
+
+/** The summary of one `bucket` run (what `--json` prints). */
+export interface BucketSummary {
+  file: string;
+  value: string;
+  source: string;
+  discrete: boolean;
+  closed: ClosedSide;
+  /** Data rows read, header excluded: bucketed + below + above + between + empty + invalid + rejected. */
+  rowsRead: number;
+  /** Rows the table reader rejected (ragged rows…), by reason. */
+  rowsRejected: number;
+  rejectedByReason: Record<string, number>;
+  bucketed: number;
+  buckets: BucketCount[];
+  below: Outcome;
+  above: Outcome;
+  /** Values in a hole between the ranges of a spec. */
+  between: Outcome;
+  empty: Outcome & { byReason: Record<string, number> };
+  invalid: Outcome & { byReason: Record<string, number> };
+  /** Values with a fraction put in whole-number buckets (completed units: 4.5 is in 0-4). */
+  nonInteger: Outcome;
+  merged: MergedEdge[];
+  notes: string[];
+}
+
+const outcome = (): Outcome => ({ count: 0, examples: [] });
+
+/** Accumulates counts for one bucket set; `record` returns the bucket index or a negative outcome. */
+export class BucketTally {
+  private readonly bucketer: Bucketer;
+  private readonly counts: Float64Array;
+  readonly below = outcome();
+  readonly above = outcome();
+  readonly between = outcome();
+  readonly empty = { ...outcome(), byReason: {} as Record<string, number> };
+  readonly invalid = { ...outcome(), byReason: {} as Record<string, number> };
+  readonly nonInteger = outcome();
+
+  constructor(readonly set: BucketSet, private readonly maxExamples = 5) {
+    this.bucketer = makeBucketer(set.buckets);
+    this.counts = new Float64Array(set.buckets.length);
+  }
+
+  private note(o: Outcome, line: number, value: string): void {
+    o.count++;
+    if (o.examples.length < this.maxExamples) o.examples.push({ line, value: value.length > 80 ? `${value.slice(0, 79)}…` : value });
+  }
+
+  /** Records one parsed value of the row starting on `line`. */
+  record(line: number, text: string, parsed: ParsedNumber): number {
+    if (parsed.status === 'empty') {
+      this.note(this.empty, line, text);
+      this.empty.byReason[parsed.reason!] = (this.empty.byReason[parsed.reason!] ?? 0) + 1;
+      return -4;
+    }
+    if (parsed.status === 'invalid') {
+      this.note(this.invalid, line, text);
+      this.invalid.byReason[parsed.reason!] = (this.invalid.byReason[parsed.reason!] ?? 0) + 1;
+      return -5;
+    }
+    const k = this.bucketer.assign(parsed.value);
+    if (k >= 0) {
+      this.counts[k]!++;
+      if (this.set.discrete && !Number.isInteger(parsed.value)) this.note(this.nonInteger, line, text);
+    } else this.note(k === BELOW ? this.below : k === ABOVE ? this.above : this.between, line, text);
+    return k;
+  }
+
+  /** The summary, given the table reader's row accounting. */
+  summary(file: string, value: string, rowsRead: number, rejectedByReason: Record<string, number>): BucketSummary {
+    const bucketed = this.counts.reduce((a, b) => a + b, 0);
+    const rowsRejected = Object.values(rejectedByReason).reduce((a, b) => a + b, 0);
+    const buckets = this.set.buckets.map((b, i): BucketCount => ({
+      index: b.index, label: b.label, ...(b.name !== undefined ? { name: b.name } : {}), ...(b.weight !== undefined ? { weight: b.weight } : {}),
+      low: b.range.low, high: b.range.high, lowClosed: b.range.lowClosed, highClosed: b.range.highClosed,
+      count: this.counts[i]!, share: bucketed === 0 ? 0 : this.counts[i]! / bucketed,
+    }));
+    const { discrete, closed, source, merged, notes } = this.set;
+    return {
+      file, value, source, discrete, closed, rowsRead, rowsRejected, rejectedByReason, bucketed, buckets,
+      below: this.below, above: this.above, between: this.between, empty: this.empty, invalid: this.invalid,
+      nonInteger: this.nonInteger, merged, notes,
+    };
+  }
+}

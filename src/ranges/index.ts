@@ -1,0 +1,9 @@
+// Public surface of the range model: ranges, labels, Allen's relations and the overlap/hole sweep.
+export type { Range, EndsRule, TimeEndpoint, TimeEndpoints, RangeLabelOptions, AllenRelation } from './types.js';
+export { makeRange, discreteRange, rangeContains, rangeEquals, compareRanges, isEmptyRange } from './range.js';
+export { allenRelation, ALLEN_INVERSE, OVERLAPPING_RELATIONS } from './allen.js';
+export { parseRangeLabel, tryParseNumericRange, formatRange } from './labels.js';
+export { rangeFromEndpoints } from './time-labels.js';
+export { parseDomain } from './domain.js';
+export { checkRanges } from './sweep.js';
+export type { RangeCheck, RangeCheckOptions, OverlapPair, DuplicateGroup } from './sweep.js';
