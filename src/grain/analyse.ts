@@ -33,8 +33,8 @@ function pickReading(col: GrainColumn): { reading: Reading; ambiguity: string[] 
 }
 
 function storedValues(r: Reading): { values: StoredValue[]; sampled: boolean } {
-  const map = r.store.values;
-  return map !== null ? { values: [...map.values()], sampled: false } : { values: r.store.reservoir, sampled: true };
+  const values = r.store.values;
+  return values !== null ? { values, sampled: false } : { values: r.store.reservoir, sampled: true };
 }
 
 function counterOf(values: readonly StoredValue[], wall: (v: StoredValue) => number): BoundaryCounter {

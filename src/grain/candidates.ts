@@ -24,9 +24,14 @@ export interface Candidate {
   approxMs: number;
   /** True when only values naming a whole day (midnight or the day's last instant) can pass the test. */
   wholeDays: boolean;
-  /** Sub-day candidates: the test is (tod + gap) % ms === 0, inlined by the counter; 0 for others. */
+  /** Sub-day candidates: the test is (tod + gap) % ms === 0; 0 for others. */
   ms: number;
   gap: number;
+  /**
+   * Calendar candidates' test. It may read only the time of day, the month, whether the day is the first or
+   * the last of its month, the weekday and the parity of the week: boundary-classes.ts groups values on
+   * exactly these fields (test/grain/counter.test.ts checks the grouping against a per-value evaluation).
+   */
   test(v: ValueParts): boolean;
 }
 

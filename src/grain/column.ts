@@ -24,8 +24,10 @@ export class Reading {
   /** Rows per value kind ('instant', 'local', 'period') and the notation unit of periods. */
   readonly kinds = { instant: 0, local: 0, period: 0 };
   periodUnit: ParsedTime['unit'] = null;
-  /** Written offsets (minutes) and their rows. */
-  readonly offsets = new Map<number, number>();
+  /** Rows of the current run of one written offset, added to the map when the offset changes. */
+  private runOffset = NaN;
+  private run = 0;
+  private readonly offsetRows = new Map<number, number>();
   min: ValueExample | null = null;
   max: ValueExample | null = null;
   minMs = Infinity;
@@ -46,10 +48,19 @@ export class Reading {
       return;
     }
     this.parsed++;
-    this.kinds[out.kind]++;
-    if (out.kind === 'period' && this.periodUnit === null) this.periodUnit = out.unit;
-    const offset = out.kind === 'instant' ? out.offset : NaN;
-    if (!Number.isNaN(offset)) this.offsets.set(offset, (this.offsets.get(offset) ?? 0) + 1);
+    const kind = out.kind;
+    let offset = NaN;
+    if (kind === 'instant') {
+      this.kinds.instant++;
+      offset = out.offset;
+      if (offset === this.runOffset) this.run++;
+      else this.startRun(offset);
+    } else if (kind === 'local') {
+      this.kinds.local++;
+    } else {
+      this.kinds.period++;
+      if (this.periodUnit === null) this.periodUnit = out.unit;
+    }
     const ms = out.ms;
     if (ms < this.minMs) {
       this.minMs = ms;
@@ -60,6 +71,18 @@ export class Reading {
       this.max = { line, value: text };
     }
     this.store.add(ms, offset, line, text);
+  }
+
+  /** Written offsets (minutes) and their rows. */
+  get offsets(): ReadonlyMap<number, number> {
+    this.startRun(NaN);
+    return this.offsetRows;
+  }
+
+  private startRun(offset: number): void {
+    if (this.run > 0) this.offsetRows.set(this.runOffset, (this.offsetRows.get(this.runOffset) ?? 0) + this.run);
+    this.runOffset = offset;
+    this.run = Number.isNaN(offset) ? 0 : 1;
   }
 }
 

@@ -3,6 +3,7 @@
 // a reservoir sample for the zone search, and from then on only counts.
 import { HyperLogLog } from '../profile/hll.js';
 import { BoundaryCounter } from './counter.js';
+import { ValueTable } from './value-table.js';
 import type { TimedValue } from './zones.js';
 
 /** Distinct values kept exactly per column (then counted in a sketch). */
@@ -18,7 +19,7 @@ export interface StoredValue extends TimedValue {
 
 export class DistinctStore {
   /** Exact distinct values in order of first appearance; null once the cap was passed. */
-  values: Map<number, StoredValue> | null = new Map();
+  table: ValueTable | null = new ValueTable();
   /** Counter of the as-written wall clock, started when the cap is passed. */
   stream: BoundaryCounter | null = null;
   sketch: HyperLogLog | null = null;
@@ -28,22 +29,19 @@ export class DistinctStore {
 
   constructor(private readonly cap = DISTINCT_CAP) {}
 
+  /** The exact distinct values in order of first appearance (made on each call), or null past the cap. */
+  get values(): StoredValue[] | null {
+    return this.table === null ? null : this.table.values();
+  }
+
   /** Adds one parsed value. */
   add(ms: number, offset: number, line: number, text: string): void {
-    const wall = Number.isNaN(offset) ? ms : ms + offset * 60_000;
-    const map = this.values;
-    if (map !== null) {
-      const hit = map.get(ms);
-      if (hit !== undefined) {
-        hit.weight++;
-        return;
-      }
-      if (map.size < this.cap) {
-        map.set(ms, { ms, offset, weight: 1, line, text, wall });
-        return;
-      }
-      this.overflow(map);
+    const table = this.table;
+    if (table !== null) {
+      if (table.add(ms, offset, line, text, this.cap) !== 'full') return;
+      this.overflow(table.values());
     }
+    const wall = Number.isNaN(offset) ? ms : ms + offset * 60_000;
     this.stream!.add(wall, 1, false, line, text);
     this.sketch!.addNumber(ms);
     const slot = this.slot();
@@ -52,14 +50,14 @@ export class DistinctStore {
 
   /** Exact number of distinct values, or the sketch's estimate past the cap. */
   distinctCount(): { count: number; exact: boolean } {
-    if (this.values !== null) return { count: this.values.size, exact: true };
+    if (this.table !== null) return { count: this.table.size, exact: true };
     return { count: this.sketch!.estimate(), exact: false };
   }
 
-  private overflow(map: Map<number, StoredValue>): void {
+  private overflow(values: readonly StoredValue[]): void {
     this.stream = new BoundaryCounter();
     this.sketch = new HyperLogLog();
-    for (const v of map.values()) {
+    for (const v of values) {
       this.stream.add(v.wall, v.weight, false, v.line, v.text);
       this.sketch.addNumber(v.ms);
       for (let i = 0; i < v.weight; i++) {
@@ -67,7 +65,7 @@ export class DistinctStore {
         if (slot >= 0) this.reservoir[slot] = { ...v, weight: 1 };
       }
     }
-    this.values = null;
+    this.table = null;
   }
 
   /** Reservoir slot for the next row (Vitter's algorithm R), or -1 when the row is not kept. */

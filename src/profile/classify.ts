@@ -28,7 +28,7 @@ function base(col: ProfileColumn): Omit<ColumnProfile, 'level' | 'role' | 'reaso
 }
 
 function distinctValues(col: ProfileColumn, limit: number): string[] | null {
-  if (!col.distinct.exact || col.distinct.counts.size > limit) return null;
+  if (!col.distinct.exact || col.distinct.count() > limit) return null;
   return [...col.distinct.counts.keys()];
 }
 

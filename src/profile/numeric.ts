@@ -32,10 +32,15 @@ export class NumericEvidence {
   private readonly out: ParsedNumber = emptyParsedNumber();
   private prev = NaN;
 
-  constructor(private readonly parser: NumberParser) {}
+  private readonly dotIsDecimal: boolean;
+
+  constructor(private readonly parser: NumberParser) {
+    this.dotIsDecimal = parser.format.decimal === '.' && !parser.format.unresolved;
+  }
 
   /** Reads one non-empty value; returns true when it is a number. */
   add(text: string): boolean {
+    if (this.addPlain(text)) return true;
     const s = this.s;
     if (this.parser.parse(text, this.out) !== 'ok') {
       this.prev = NaN;
@@ -64,7 +69,70 @@ export class NumericEvidence {
     }
     return true;
   }
+
+  /**
+   * One scan of a plain decimal (`-?digits[.digits]`, at most 15 digits, the dot only where it marks
+   * decimals): the value is the digits as an exact integer divided by an exact power of ten, which IEEE 754
+   * division rounds correctly — the same number `Number(text)` gives (Clinger, "How to read floating point
+   * numbers accurately", PLDI 1990: the exact fast path). Returns false, touching nothing, for any other text.
+   */
+  private addPlain(text: string): boolean {
+    const n = text.length;
+    let i = 0;
+    let c = n > 0 ? text.charCodeAt(0) : 0;
+    const negative = c === 45;
+    if (negative || c === 43) i++;
+    const intStart = i;
+    let digits = 0;
+    let value = 0;
+    while (i < n && (c = text.charCodeAt(i)) >= 48 && c <= 57) {
+      value = value * 10 + (c - 48);
+      i++;
+    }
+    digits = i - intStart;
+    let decimals = -1;
+    if (i < n && c === 46) {
+      if (!this.dotIsDecimal) return false;
+      const f = ++i;
+      while (i < n && (c = text.charCodeAt(i)) >= 48 && c <= 57) {
+        value = value * 10 + (c - 48);
+        i++;
+      }
+      decimals = i - f;
+      digits += decimals;
+    }
+    if (i !== n || digits === 0 || digits > 15) return false;
+    let x = decimals > 0 ? value / POW10[decimals]! : value;
+    if (negative && x !== 0) x = -x;
+    this.record(x);
+    const s = this.s;
+    if (decimals < 0 && intStart === 0) {
+      s.digitOnly++;
+      if (n < s.minWidth) s.minWidth = n;
+      if (n > s.maxWidth) s.maxWidth = n;
+      if (n > 1 && text.charCodeAt(0) === 48) {
+        s.zeroPadded++;
+        if (s.zeroPaddedExample === null) s.zeroPaddedExample = text;
+      }
+    } else if (decimals >= 0 && decimals > s.maxDecimals) {
+      s.maxDecimals = decimals;
+    }
+    return true;
+  }
+
+  private record(x: number): void {
+    const s = this.s;
+    s.numbers++;
+    if (Number.isInteger(x)) s.integers++;
+    if (x < 0) s.negatives++;
+    if (x < s.min) s.min = x;
+    if (x > s.max) s.max = x;
+    if (x === this.prev + 1) s.stepsOfOne++;
+    this.prev = x;
+  }
 }
+
+const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
 
 function isDigits(t: string): boolean {
   if (t.length === 0) return false;

@@ -32,10 +32,13 @@ function combosOf(count: number, nearUnique: readonly boolean[]): Combo[] {
     .map((cols) => ({ cols, seen: new Set<number>() }));
 }
 
+/** A second 32-bit string hash, independent of hashString (murmur-style steps seeded with the length). */
 function hash2(s: string): number {
-  let h = 0x9747b28c;
+  let h = 0x9747b28c ^ s.length;
   for (let i = 0; i < s.length; i++) h = Math.imul(h ^ s.charCodeAt(i), 0x5bd1e995) ^ (h >>> 15);
-  return hashString(`${s.length}:${s}`) ^ h;
+  h = Math.imul(h ^ (h >>> 16), 0x85ebca6b);
+  h = Math.imul(h ^ (h >>> 13), 0xc2b2ae35);
+  return (h ^ (h >>> 16)) >>> 0;
 }
 
 function subsets(n: number, maxSize: number): number[][] {
