@@ -1,48 +1,43 @@
-// A binary min-heap of indices keyed by endpoint positions (value, side), for the overlap sweep.
+// A binary min-heap of range positions keyed by integer end keys, for the overlap sweep.
 
-/** A min-heap of integer ids ordered by (value[id], side[id]). */
-export class PositionHeap {
-  private ids: number[] = [];
-  constructor(private readonly value: Float64Array, private readonly side: Uint8Array) {}
+/** A min-heap of integer ids ordered by key[id], in a typed array of fixed capacity. */
+export class KeyHeap {
+  private readonly ids: Uint32Array;
+  size = 0;
+  constructor(private readonly key: Int32Array, capacity: number) { this.ids = new Uint32Array(Math.max(1, capacity)); }
 
-  get size(): number { return this.ids.length; }
-  /** The ids in heap order (not sorted); read-only use. */
-  get items(): readonly number[] { return this.ids; }
+  /** The j-th id in heap order (not sorted), 0 ≤ j < size. */
+  at(j: number): number { return this.ids[j]!; }
   peek(): number { return this.ids[0]!; }
 
-  private less(a: number, b: number): boolean {
-    const va = this.value[a]!, vb = this.value[b]!;
-    return va < vb || (va === vb && this.side[a]! < this.side[b]!);
-  }
-
   push(id: number): void {
-    const h = this.ids;
-    let i = h.length;
-    h.push(id);
+    const h = this.ids, key = this.key, k = key[id]!;
+    let i = this.size++;
     while (i > 0) {
       const p = (i - 1) >> 1;
-      if (!this.less(h[i]!, h[p]!)) break;
-      [h[i], h[p]] = [h[p]!, h[i]!];
+      if (key[h[p]!]! <= k) break;
+      h[i] = h[p]!;
       i = p;
     }
+    h[i] = id;
   }
 
   pop(): number {
-    const h = this.ids;
+    const h = this.ids, key = this.key;
     const top = h[0]!;
-    const last = h.pop()!;
-    if (h.length > 0) {
-      h[0] = last;
+    const n = --this.size;
+    if (n > 0) {
+      const last = h[n]!, k = key[last]!;
       let i = 0;
       for (;;) {
-        const l = 2 * i + 1, r = l + 1;
-        let m = i;
-        if (l < h.length && this.less(h[l]!, h[m]!)) m = l;
-        if (r < h.length && this.less(h[r]!, h[m]!)) m = r;
-        if (m === i) break;
-        [h[i], h[m]] = [h[m]!, h[i]!];
+        const l = 2 * i + 1;
+        if (l >= n) break;
+        const m = l + 1 < n && key[h[l + 1]!]! < key[h[l]!]! ? l + 1 : l;
+        if (key[h[m]!]! >= k) break;
+        h[i] = h[m]!;
         i = m;
       }
+      h[i] = last;
     }
     return top;
   }

@@ -1,12 +1,11 @@
 // Endpoint positions as exact integer keys, so a million ranges sort in linear time: every distinct
 // endpoint value gets its rank among all values, and key = 2 × rank + side (see range.ts on sides).
-import type { Range } from './types.js';
-import { highSide, highValue, lowSide, lowValue } from './range.js';
+import { HIGH_CLOSED, LOW_CLOSED, type RangeColumns } from './columns.js';
 
 export interface EndKeys {
-  /** Low and high key of each range. */
-  low: Float64Array;
-  high: Float64Array;
+  /** Low and high key of each checked range, by its position in the checked ids. */
+  low: Int32Array;
+  high: Int32Array;
   /** The distinct endpoint values in order: value of key k is values[k >> 1], side k & 1. */
   values: Float64Array;
 }
@@ -21,21 +20,77 @@ function rankOf(values: Float64Array, x: number): number {
   return lo;
 }
 
-/** Integer keys of every range's ends (and of extra points such as a domain's ends). */
-export function endKeys(ranges: readonly Range[], extra: readonly number[] = []): EndKeys {
-  const n = ranges.length;
+/** Below this many values a comparison sort and binary searches beat the radix passes. */
+const RADIX_MIN = 4096;
+
+/**
+ * The order of `values` ascending (stable), by LSD radix sort on their IEEE 754 bits made unsigned-
+ * sortable (sign bit flipped, all bits of negatives flipped): four 16-bit passes, skipping a pass where
+ * every value has the same digit. No value may be NaN or −0.
+ */
+function radixOrder(values: Float64Array): Uint32Array {
+  const n = values.length;
+  const bits = new Uint32Array(values.buffer, values.byteOffset, 2 * n);
+  const lo = new Uint32Array(n), hi = new Uint32Array(n);
+  for (let i = 0; i < n; i++) {
+    const h = bits[2 * i + 1]!, l = bits[2 * i]!;
+    if (h & 0x80000000) { hi[i] = ~h >>> 0; lo[i] = ~l >>> 0; } else { hi[i] = (h | 0x80000000) >>> 0; lo[i] = l; }
+  }
+  let order = new Uint32Array(n), tmp = new Uint32Array(n);
+  for (let i = 0; i < n; i++) order[i] = i;
+  const count = new Uint32Array(65536);
+  for (let pass = 0; pass < 4; pass++) {
+    const word = pass < 2 ? lo : hi, shift = pass & 1 ? 16 : 0;
+    count.fill(0);
+    for (let i = 0; i < n; i++) count[(word[i]! >>> shift) & 0xffff]!++;
+    if (count[(word[0]! >>> shift) & 0xffff] === n) continue;
+    let sum = 0;
+    for (let d = 0; d < 65536; d++) { const c = count[d]!; count[d] = sum; sum += c; }
+    for (let j = 0; j < n; j++) { const e = order[j]!; tmp[count[(word[e]! >>> shift) & 0xffff]!++] = e; }
+    [order, tmp] = [tmp, order];
+  }
+  return order;
+}
+
+/** Distinct sorted values and the rank of each input value among them. */
+function ranks(all: Float64Array): { values: Float64Array; rank: Uint32Array } {
+  const order = radixOrder(all);
+  const rank = new Uint32Array(all.length);
+  const distinct = new Float64Array(all.length);
+  let m = 0;
+  for (let j = 0; j < order.length; j++) {
+    const i = order[j]!, v = all[i]!;
+    if (m === 0 || v !== distinct[m - 1]) distinct[m++] = v;
+    rank[i] = m - 1;
+  }
+  return { values: distinct.slice(0, m), rank };
+}
+
+/** Integer keys of the ends of ranges ids[0..] of the columns (and of extra points such as a domain's ends). */
+export function endKeys(c: RangeColumns, ids: Uint32Array, extra: readonly number[] = []): EndKeys {
+  const n = ids.length;
   const all = new Float64Array(2 * n + extra.length);
-  for (let i = 0; i < n; i++) { all[2 * i] = lowValue(ranges[i]!); all[2 * i + 1] = highValue(ranges[i]!); }
-  all.set(extra, 2 * n);
+  // x + 0 reads −0 as 0, which the radix order would otherwise put before 0.
+  for (let j = 0; j < n; j++) { const i = ids[j]!; all[2 * j] = c.low[i]! + 0; all[2 * j + 1] = c.high[i]! + 0; }
+  for (let e = 0; e < extra.length; e++) all[2 * n + e] = extra[e]! + 0;
+  const low = new Int32Array(n), high = new Int32Array(n);
+  if (all.length >= RADIX_MIN) {
+    const { values, rank } = ranks(all);
+    for (let j = 0; j < n; j++) {
+      const f = c.flags[ids[j]!]!;
+      low[j] = 2 * rank[2 * j]! + (f & LOW_CLOSED ? 0 : 1);
+      high[j] = 2 * rank[2 * j + 1]! + (f & HIGH_CLOSED ? 1 : 0);
+    }
+    return { low, high, values };
+  }
   all.sort();
   let m = 0;
   for (let i = 0; i < all.length; i++) if (i === 0 || all[i] !== all[m - 1]) all[m++] = all[i]!;
   const values = all.slice(0, m);
-  const low = new Float64Array(n), high = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const r = ranges[i]!;
-    low[i] = 2 * rankOf(values, lowValue(r)) + lowSide(r);
-    high[i] = 2 * rankOf(values, highValue(r)) + highSide(r);
+  for (let j = 0; j < n; j++) {
+    const i = ids[j]!, f = c.flags[i]!;
+    low[j] = 2 * rankOf(values, c.low[i]!) + (f & LOW_CLOSED ? 0 : 1);
+    high[j] = 2 * rankOf(values, c.high[i]!) + (f & HIGH_CLOSED ? 1 : 0);
   }
   return { low, high, values };
 }
@@ -45,18 +100,24 @@ export function keyOf(k: EndKeys, v: number, side: number): number {
   return 2 * rankOf(k.values, v) + side;
 }
 
-/** Stable counting sort of `order` by integer keys in [0, size). */
-function countingSort(order: Uint32Array, key: Float64Array, size: number): Uint32Array {
-  const count = new Uint32Array(size + 1);
-  for (let i = 0; i < order.length; i++) count[key[order[i]!]! + 1]!++;
-  for (let k = 1; k <= size; k++) count[k]! += count[k - 1]!;
-  const out = new Uint32Array(order.length);
-  for (let i = 0; i < order.length; i++) { const j = order[i]!; out[count[key[j]!]!++] = j; }
-  return out;
+/** Stable LSD radix sort of `order` by integer keys in [0, size): 11-bit digits, as many passes as size needs. */
+function radixByKey(order: Uint32Array, key: Int32Array, size: number): Uint32Array {
+  let from = order.slice(), to = new Uint32Array(order.length);
+  const count = new Uint32Array(2048);
+  for (let shift = 0; shift === 0 || size >>> shift > 0; shift += 11) {
+    count.fill(0);
+    for (let i = 0; i < from.length; i++) count[(key[from[i]!]! >>> shift) & 2047]!++;
+    let sum = 0;
+    for (let d = 0; d < 2048; d++) { const c = count[d]!; count[d] = sum; sum += c; }
+    for (let i = 0; i < from.length; i++) { const j = from[i]!; to[count[(key[j]! >>> shift) & 2047]!++] = j; }
+    [from, to] = [to, from];
+  }
+  return from;
 }
 
-/** Indices in `ids` ordered by low key, then high key, then index (two stable counting sorts). */
+/** Positions in `ids` ordered by low key, then high key, then position (two stable radix sorts). */
 export function sortByEnds(ids: Uint32Array, k: EndKeys): Uint32Array {
   const size = 2 * k.values.length;
-  return countingSort(countingSort(ids, k.high, size), k.low, size);
+  if (ids.length < 64) return ids.slice().sort((a, b) => k.low[a]! - k.low[b]! || k.high[a]! - k.high[b]! || a - b);
+  return radixByKey(radixByKey(ids, k.high, size), k.low, size);
 }

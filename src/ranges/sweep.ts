@@ -2,8 +2,9 @@
 // O(n log n + k) for k listed pairs, never a comparison of all pairs.
 import type { AllenRelation, Range } from './types.js';
 import { allenFromPositions } from './allen.js';
-import { highSide, highValue, isEmptyRange, lowSide, lowValue, rangeFromPositions } from './range.js';
-import { PositionHeap } from './heap.js';
+import { highSide, highValue, lowSide, lowValue, rangeFromPositions } from './range.js';
+import { KeyHeap } from './heap.js';
+import { DISCRETE, rangeColumnsOf, type RangeColumns } from './columns.js';
 import { endKeys, keyOf, sortByEnds, type EndKeys } from './keys.js';
 
 /** One overlapping pair: indices into the caller's array, `a` starting no later than `b`. */
@@ -39,40 +40,43 @@ export interface RangeCheckOptions {
   maxPairs?: number;
 }
 
-/** Non-empty ranges sorted by ends; empty ones apart. */
-function sortedOrder(ranges: readonly Range[], k: EndKeys): { order: Uint32Array; empty: number[] } {
+/** Positions of the non-empty ranges sorted by ends; positions of empty ones apart. */
+function sortedOrder(k: EndKeys): { order: Uint32Array; empty: number[] } {
   const empty: number[] = [];
-  const ids = new Uint32Array(ranges.length);
+  const n0 = k.low.length;
+  const ids = new Uint32Array(n0);
   let n = 0;
-  for (let i = 0; i < ranges.length; i++) if (isEmptyRange(ranges[i]!)) empty.push(i); else ids[n++] = i;
+  for (let j = 0; j < n0; j++) if (k.low[j]! >= k.high[j]!) empty.push(j); else ids[n++] = j;
   return { order: sortByEnds(ids.subarray(0, n), k), empty };
 }
 
 /** Collapses copies: one representative per distinct range, and the duplicate groups. */
-function distinct(order: Uint32Array, k: EndKeys): { reps: number[]; duplicates: DuplicateGroup[] } {
-  const reps: number[] = [];
+function distinct(order: Uint32Array, k: EndKeys): { reps: Uint32Array; duplicates: DuplicateGroup[] } {
+  const reps = new Uint32Array(order.length);
+  let r = 0;
   const duplicates: DuplicateGroup[] = [];
   for (let i = 0; i < order.length;) {
     const a = order[i]!;
     let j = i + 1;
     while (j < order.length && k.low[order[j]!] === k.low[a] && k.high[order[j]!] === k.high[a]) j++;
-    reps.push(a);
+    reps[r++] = a;
     if (j - i > 1) duplicates.push({ indices: Array.from(order.subarray(i, j)) });
     i = j;
   }
-  return { reps, duplicates };
+  return { reps: reps.subarray(0, r), duplicates };
 }
 
 /** The sweep: active ranges in a min-heap by high end; each new range overlaps every one still active. */
-function sweepOverlaps(reps: number[], k: EndKeys, maxPairs: number): { pairs: OverlapPair[]; count: number } {
-  const heap = new PositionHeap(k.high, new Uint8Array(k.high.length));
+function sweepOverlaps(reps: Uint32Array, k: EndKeys, maxPairs: number): { pairs: OverlapPair[]; count: number } {
+  const heap = new KeyHeap(k.high, reps.length);
   const pairs: OverlapPair[] = [];
   let count = 0;
-  for (const b of reps) {
+  for (let r = 0; r < reps.length; r++) {
+    const b = reps[r]!;
     while (heap.size > 0 && k.high[heap.peek()]! <= k.low[b]!) heap.pop();
     count += heap.size;
     for (let j = 0; j < heap.size && pairs.length < maxPairs; j++) {
-      const a = heap.items[j]!;
+      const a = heap.at(j);
       pairs.push({ a, b, relation: allenFromPositions(k.low[a]!, 0, k.high[a]!, 0, k.low[b]!, 0, k.high[b]!, 0) });
     }
     heap.push(b);
@@ -86,14 +90,15 @@ function positionRange(k: EndKeys, from: number, to: number, discrete: boolean):
 }
 
 /** Holes between consecutive ranges, clipped to the domain keys [dlo, dhi). */
-function findHoles(reps: number[], k: EndKeys, dlo: number, dhi: number, discrete: boolean): Range[] {
+function findHoles(reps: Uint32Array, k: EndKeys, dlo: number, dhi: number, discrete: boolean): Range[] {
   const holes: Range[] = [];
   let reach = dlo; // how far the ranges reach so far
   const hole = (from: number, to: number): void => {
     const a = Math.max(from, dlo), b = Math.min(to, dhi);
     if (a < b) holes.push(positionRange(k, a, b, discrete));
   };
-  for (const i of reps) {
+  for (let r = 0; r < reps.length; r++) {
+    const i = reps[r]!;
     if (k.low[i]! > reach) hole(reach, k.low[i]!);
     if (k.high[i]! > reach) reach = k.high[i]!;
   }
@@ -106,19 +111,34 @@ function findHoles(reps: number[], k: EndKeys, dlo: number, dhi: number, discret
  * copies of one range, and whether the ranges cover and partition a domain. Never sorts the caller's array.
  */
 export function checkRanges(ranges: readonly Range[], options: RangeCheckOptions = {}): RangeCheck {
+  return checkRangeColumns(rangeColumnsOf(ranges), undefined, options);
+}
+
+function identity(n: number): Uint32Array {
+  const ids = new Uint32Array(n);
+  for (let i = 0; i < n; i++) ids[i] = i;
+  return ids;
+}
+
+/**
+ * checkRanges on ranges held as columns: checks ranges ids[0..] of the columns (all of them when ids is
+ * not given); the indices in the result are positions in `ids`. Memory grows as typed arrays only.
+ */
+export function checkRangeColumns(c: RangeColumns, ids: Uint32Array | undefined, options: RangeCheckOptions = {}): RangeCheck {
   const d = options.domain;
-  const k = endKeys(ranges, d === undefined ? [] : [lowValue(d), highValue(d)]);
-  const { order, empty } = sortedOrder(ranges, k);
+  const all = ids ?? identity(c.length);
+  const k = endKeys(c, all, d === undefined ? [] : [lowValue(d), highValue(d)]);
+  const { order, empty } = sortedOrder(k);
   const { reps, duplicates } = distinct(order, k);
   const { pairs, count } = sweepOverlaps(reps, k, options.maxPairs ?? 1000);
   let dlo = 0, dhi = 0, hasDomain = reps.length > 0;
   if (d !== undefined) { dlo = keyOf(k, lowValue(d), lowSide(d)); dhi = keyOf(k, highValue(d), highSide(d)); hasDomain = true; }
-  else if (reps.length > 0) { dlo = k.low[reps[0]!]!; for (const i of reps) dhi = Math.max(dhi, k.high[i]!); }
+  else if (reps.length > 0) { dlo = k.low[reps[0]!]!; for (let r = 0; r < reps.length; r++) dhi = Math.max(dhi, k.high[reps[r]!]!); }
   let discrete = order.length > 0;
-  for (const i of order) if (!ranges[i]!.discrete) { discrete = false; break; }
+  for (let j = 0; j < order.length; j++) if ((c.flags[all[order[j]!]!]! & DISCRETE) === 0) { discrete = false; break; }
   const holes = hasDomain ? findHoles(reps, k, dlo, dhi, discrete) : [];
   const outside: number[] = [];
-  if (d !== undefined) for (const i of order) if (k.low[i]! < dlo || k.high[i]! > dhi) outside.push(i);
+  if (d !== undefined) for (let j = 0; j < order.length; j++) { const i = order[j]!; if (k.low[i]! < dlo || k.high[i]! > dhi) outside.push(i); }
   outside.sort((a, b) => a - b);
   const covers = hasDomain && holes.length === 0;
   return {
