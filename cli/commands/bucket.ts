@@ -8,8 +8,9 @@ import { pipeline } from 'node:stream/promises';
 import { Command, Option } from 'commander';
 import {
   BIN_RULES, BUCKET_SCHEMES, QuernError, bucketSpecOf, bucketSummaryJson, bucketSummaryText, bucketTable, csvRow,
-  openOutput, openTable, schemesText,
+  openOutput, openTable, renderBucketReport, schemesText,
 } from '../../src/index.js';
+import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { BinRule, BucketPlan, BucketSpec, BucketRunOptions, BucketSink, NumberFormat, OutputTarget, QuantileType } from '../../src/index.js';
 import type { CommandContext } from '../program.js';
 import { useColor } from '../io.js';
@@ -46,6 +47,7 @@ interface BucketFlags {
   spec?: string; specOut?: string; closed: 'left' | 'right'; labels: 'auto' | 'integer' | 'interval';
   decimal?: '.' | ','; group?: string; labelColumn?: string; indexColumn?: string;
   out: string; summary?: boolean; json?: boolean; quiet?: boolean; delimiter?: string; neutralise: boolean;
+  report?: string;
 }
 
 export function registerBucket(program: Command, ctx: CommandContext): void {
@@ -78,6 +80,7 @@ export function registerBucket(program: Command, ctx: CommandContext): void {
     .option('-q, --quiet', 'no summary')
     .option('--delimiter <char>', 'input field delimiter (default: sniffed)')
     .option('--no-neutralise', 'do not neutralise formula-like cells in CSV output (trusted pipelines only)')
+    .option('--report <file.html>', REPORT_HELP)
     .addHelpText('after', EXAMPLES)
     .action(async (file: string | undefined, flags: BucketFlags) => {
       if (flags.listSchemes) { ctx.io.stdout.write(schemesText(BUCKET_SCHEMES)); return; }
@@ -195,6 +198,7 @@ async function runBucket(file: string, open: () => ReturnType<typeof openTable>,
       throw new QuernError('E_OUTPUT', `cannot write the spec file ${f.specOut}: ${(e as NodeJS.ErrnoException).code ?? String(e)}`);
     }
   }
+  await writeReport(f.report, () => renderBucketReport(result), ctx.io);
   if (f.quiet) return;
   const stream = out !== null && f.out === '-' ? ctx.io.stderr : ctx.io.stdout;
   stream.write(f.json ? bucketSummaryJson(result) : bucketSummaryText(result, { color: useColor(ctx.io, stream), width: Math.min(stream.columns ?? 80, 100) }));

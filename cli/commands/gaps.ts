@@ -6,8 +6,9 @@ import { resolve } from 'node:path';
 import { Command, Option } from 'commander';
 import {
   QuernError, boundInstant, detectGapsUnit, findGaps, fixedDurationMs, gapsJson, gapsText, openTable, parseFiscalStart,
-  parseIsoDuration, parseSkipDates, parseUnitName, parseWeekStart,
+  parseIsoDuration, parseSkipDates, parseUnitName, parseWeekStart, renderGapsReport,
 } from '../../src/index.js';
+import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { CalendarOptions, GapsOptions } from '../../src/index.js';
 import { useColor } from '../io.js';
 import type { CommandContext } from '../program.js';
@@ -40,6 +41,7 @@ interface GapsFlags {
   time: string; unit?: string; step?: string; zone?: string; weekStart?: string; fiscalStart?: string; fiscalLabel?: 'end' | 'start';
   by?: string[]; weekdays?: boolean; skipDates?: string; maxGap?: string; from?: string; until?: string;
   duplicates: boolean; check?: boolean; json?: boolean; timeFormat?: string; dayFirst?: boolean; monthFirst?: boolean; delimiter?: string;
+  report?: string;
 }
 
 export function registerGaps(program: Command, ctx: CommandContext): void {
@@ -67,6 +69,7 @@ export function registerGaps(program: Command, ctx: CommandContext): void {
     .option('--month-first', 'numeric dates are month first (05/04/2021 is May 4)')
     .option('--time-format <id>', 'how the time values are written, instead of inferring it')
     .option('--delimiter <char>', 'input field delimiter (default: sniffed)')
+    .option('--report <file.html>', REPORT_HELP)
     .addHelpText('after', EXAMPLES)
     .action(async (file: string, flags: GapsFlags) => {
       const options = await gapsOptions(file, flags, ctx);
@@ -78,6 +81,7 @@ export function registerGaps(program: Command, ctx: CommandContext): void {
         const result = await findGaps(reader, options);
         ctx.io.stdout.write(flags.json ? gapsJson(result) : gapsText(result, { color: useColor(ctx.io), width: Math.min(80, (ctx.io.stdout.columns ?? 80) - 4) }));
         if (flags.check && result.problems) ctx.setExit(1);
+        await writeReport(flags.report, () => renderGapsReport(result), ctx.io);
       } finally {
         progress.stop();
         reader.close();

@@ -1,7 +1,8 @@
 // `quern grain`: a date column's true resolution, format, zone and cadence.
 // Options → GrainOptions → detectGrain() → GrainReport → text or JSON.
 import type { Command } from 'commander';
-import { QuernError, detectGrain, renderGrainText } from '../../src/index.js';
+import { QuernError, detectGrain, grainCycles, renderGrainReport, renderGrainText } from '../../src/index.js';
+import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { GrainOptions } from '../../src/index.js';
 import type { CommandContext } from '../program.js';
 import { useColor } from '../io.js';
@@ -35,6 +36,7 @@ interface GrainFlags {
   monthFirst?: boolean;
   json?: boolean;
   delimiter?: string;
+  report?: string;
 }
 
 function collect(value: string, previous: string[] | undefined): string[] {
@@ -52,6 +54,7 @@ export function registerGrain(program: Command, ctx: CommandContext): void {
     .option('--month-first', 'numeric dates are month first (03/04/2024 = March 4)')
     .option('--json', 'print the result as JSON')
     .option('--delimiter <char>', 'input field delimiter (default: sniffed)')
+    .option('--report <file.html>', REPORT_HELP)
     .addHelpText('after', EXAMPLES)
     .action(async (file: string, flags: GrainFlags) => {
       const options: GrainOptions = {
@@ -69,5 +72,6 @@ export function registerGrain(program: Command, ctx: CommandContext): void {
       }
       if (flags.json) ctx.io.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
       else ctx.io.stdout.write(renderGrainText(report, { width: ctx.io.stdout.columns ?? 100, color: useColor(ctx.io) }));
+      await writeReport(flags.report, async () => renderGrainReport(report, { cycles: await grainCycles(file, report, { cwd: ctx.io.cwd, ...(flags.delimiter ? { delimiter: flags.delimiter } : {}) }) }), ctx.io);
     });
 }

@@ -3,7 +3,8 @@
 import { readFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { Command, Option } from 'commander';
-import { QuernError, checkRanges, formatRange, openTable, overlapsJson, overlapsText, parseDomain } from '../../src/index.js';
+import { QuernError, checkRangeColumns, formatRange, openTable, overlapsJson, overlapsText, parseDomain, renderOverlapsReport } from '../../src/index.js';
+import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { EndsRule, InferHints, OverlapsResult, OverlapsSeries, Range, RangeCheck } from '../../src/index.js';
 import type { CommandContext } from '../program.js';
 import { useColor } from '../io.js';
@@ -31,7 +32,7 @@ Reports: each overlapping pair with its Allen relation (J. F. Allen, CACM 26(11)
 
 interface OverlapsFlags {
   start?: string; end?: string; range?: string; spec?: string; by?: string; ends: EndsRule; domain?: string;
-  check?: boolean; json?: boolean; maxPairs: string; delimiter?: string; dayFirst?: boolean; monthFirst?: boolean; chart: boolean;
+  check?: boolean; json?: boolean; maxPairs: string; delimiter?: string; dayFirst?: boolean; monthFirst?: boolean; chart: boolean; report?: string;
 }
 
 export function registerOverlaps(program: Command, ctx: CommandContext): void {
@@ -50,6 +51,7 @@ export function registerOverlaps(program: Command, ctx: CommandContext): void {
     .option('--json', 'print the result as JSON')
     .option('--max-pairs <n>', 'overlapping pairs to list per series (all are counted)', '1000')
     .option('--no-chart', 'no text chart of the ranges')
+    .option('--report <file.html>', REPORT_HELP)
     .option('--day-first', 'numeric dates are day first (05/04/2024 = 5 April)')
     .option('--month-first', 'numeric dates are month first (05/04/2024 = May 4)')
     .option('--delimiter <char>', 'input field delimiter (default: sniffed)')
@@ -63,6 +65,7 @@ export function registerOverlaps(program: Command, ctx: CommandContext): void {
       const stream = ctx.io.stdout;
       stream.write(flags.json ? overlapsJson(result) : overlapsText(result, { color: useColor(ctx.io), width: Math.min(stream.columns ?? 80, 100) }));
       if (flags.check && (result.totals.overlaps > 0 || result.totals.holes > 0 || result.totals.duplicates > 0)) ctx.setExit(1);
+      await writeReport(flags.report, () => renderOverlapsReport(result), ctx.io);
     });
 }
 
@@ -107,42 +110,42 @@ function holeEnds(rows: RangeRows, h: Range): { from: number | string; to: numbe
   return { from: h.low ?? '-inf', to: h.high === null ? 'inf' : h.discrete ? h.high - 1 : h.high };
 }
 
-function seriesOf(key: string | null, idx: number[], rows: RangeRows, domain: Range | undefined, limit: number): { s: OverlapsSeries; check: RangeCheck; ranges: Range[] } {
-  const ranges = idx.map((i) => rows.ranges[i]!);
-  const check = checkRanges(ranges, { ...(domain ? { domain } : {}), maxPairs: limit });
+function seriesOf(key: string | null, idx: number[], rows: RangeRows, domain: Range | undefined, limit: number): { s: OverlapsSeries; check: RangeCheck; at: (k: number) => Range } {
+  const at = (k: number) => rows.range(idx[k]!);
+  const check = checkRangeColumns(rows.ranges, Uint32Array.from(idx), { ...(domain ? { domain } : {}), maxPairs: limit });
   const ref = (k: number) => ({ line: rows.lines[idx[k]!]!, range: rows.text(idx[k]!) });
   const s: OverlapsSeries = {
     key, ranges: check.ranges,
-    overlaps: check.overlaps.map((p) => ({ a: ref(p.a), b: ref(p.b), relation: p.relation, shared: label(rows, shared(ranges[p.a]!, ranges[p.b]!)) })),
+    overlaps: check.overlaps.map((p) => ({ a: ref(p.a), b: ref(p.b), relation: p.relation, shared: label(rows, shared(at(p.a), at(p.b))) })),
     overlapCount: check.overlapCount,
     holes: check.holes.map((h) => ({ ...holeEnds(rows, h), range: label(rows, h) })),
     duplicates: check.duplicates.map((d) => ({ range: rows.text(idx[d.indices[0]!]!), lines: d.indices.map((k) => rows.lines[idx[k]!]!).sort((x, y) => x - y), count: d.indices.length })),
     empty: check.empty.map(ref), outside: check.outside.map(ref),
     domain: check.domain === null ? null : label(rows, check.domain), covers: check.covers, partition: check.partition,
   };
-  return { s, check, ranges };
+  return { s, check, at };
 }
 
-function chartOf(rows: RangeRows, idx: number[], check: RangeCheck, ranges: Range[]): NonNullable<OverlapsResult['chart']>[number] {
+function chartOf(rows: RangeRows, idx: number[], check: RangeCheck, at: (k: number) => Range): NonNullable<OverlapsResult['chart']>[number] {
   if (idx.length > 40 || idx.length === 0) return null;
   const fmt = rows.time !== null ? (v: number) => rows.time!.formatPoint(Math.round(v)) : (v: number) => String(v);
-  const marks = [...check.overlaps.map((p) => shared(ranges[p.a]!, ranges[p.b]!)).map((r) => ({ kind: 'overlap' as const, low: r.low ?? 0, high: r.high ?? 0 })),
+  const marks = [...check.overlaps.map((p) => shared(at(p.a), at(p.b))).map((r) => ({ kind: 'overlap' as const, low: r.low ?? 0, high: r.high ?? 0 })),
     ...check.holes.filter((h) => h.low !== null && h.high !== null).map((h) => ({ kind: 'hole' as const, low: h.low!, high: h.high! }))];
-  return { ranges: idx.map((i) => ({ label: rows.text(i), low: rows.ranges[i]!.low, high: rows.ranges[i]!.high })), marks, format: fmt };
+  return { ranges: idx.map((i) => ({ label: rows.text(i), low: rows.range(i).low, high: rows.range(i).high })), marks, format: fmt };
 }
 
 function analyse(file: string, rows: RangeRows, f: OverlapsFlags): OverlapsResult {
   const limit = maxPairs(f.maxPairs);
-  const domain = f.domain === undefined ? undefined : parseDomain(f.domain, { ends: rows.kind === 'number' && !rows.ranges.every((r) => r.discrete) ? 'closed' : 'auto', ...(rows.time ? { time: rows.time } : {}) });
+  const domain = f.domain === undefined ? undefined : parseDomain(f.domain, { ends: rows.kind === 'number' && !rows.allDiscrete ? 'closed' : 'auto', ...(rows.time ? { time: rows.time } : {}) });
   if (domain === null) throw new QuernError('E_VALUE', `--domain ${JSON.stringify(f.domain)} is not a range`, 'write 0.., 0..120, or 2024-01-01..2024-12-31');
-  const groups = new Map<string, number[]>();
+  const groups = new Map<number, number[]>();
   rows.keys.forEach((k, i) => { const g = groups.get(k); if (g) g.push(i); else groups.set(k, [i]); });
   const series: OverlapsSeries[] = [];
   const chart: NonNullable<OverlapsResult['chart']> = [];
   for (const [key, idx] of groups) {
-    const { s, check, ranges } = seriesOf(f.by === undefined ? null : key, idx, rows, domain, limit);
+    const { s, check, at } = seriesOf(f.by === undefined ? null : rows.keyNames[key]!, idx, rows, domain, limit);
     series.push(s);
-    chart.push(f.chart ? chartOf(rows, idx, check, ranges) : null);
+    chart.push(f.chart ? chartOf(rows, idx, check, at) : null);
   }
   const totals = {
     overlaps: series.reduce((a, s) => a + s.overlapCount, 0), holes: series.reduce((a, s) => a + s.holes.length, 0),

@@ -1,7 +1,8 @@
 // `quern profile`: the measurement level and role of every column, and the table's shape.
 // Options → ProfileOptions → profileTable() → ProfileReport → text or JSON.
 import type { Command } from 'commander';
-import { profileTable, renderProfileText } from '../../src/index.js';
+import { profileEvidence, profileTable, renderProfileReport, renderProfileText } from '../../src/index.js';
+import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { CommandContext } from '../program.js';
 import { useColor } from '../io.js';
 
@@ -23,6 +24,7 @@ What it tells:
 
 interface ProfileFlags {
   json?: boolean;
+  report?: string;
   delimiter?: string;
 }
 
@@ -33,6 +35,7 @@ export function registerProfile(program: Command, ctx: CommandContext): void {
     .argument('<file>', "table to read (CSV, TSV, NDJSON, optionally gzipped; '-' for standard input)")
     .option('--json', 'print the result as JSON')
     .option('--delimiter <char>', 'input field delimiter (default: sniffed)')
+    .option('--report <file.html>', REPORT_HELP)
     .addHelpText('after', EXAMPLES)
     .action(async (file: string, flags: ProfileFlags) => {
       const report = await profileTable(file, {
@@ -40,5 +43,6 @@ export function registerProfile(program: Command, ctx: CommandContext): void {
       });
       if (flags.json) ctx.io.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
       else ctx.io.stdout.write(renderProfileText(report, { width: ctx.io.stdout.columns ?? 100, color: useColor(ctx.io) }));
+      await writeReport(flags.report, async () => renderProfileReport(report, { evidence: await profileEvidence(file, report, { cwd: ctx.io.cwd, ...(flags.delimiter ? { delimiter: flags.delimiter } : {}) }) }), ctx.io);
     });
 }

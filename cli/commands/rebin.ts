@@ -6,7 +6,9 @@ import { Command, Option } from 'commander';
 import {
   QuernError, boundInstant, csvRow, openOutput, openTable, parseAggSpecs, parseAssignPolicy, parseFiscalStart,
   parseQuantileType, parseUnitName, parseWeekStart, rebin, rebinJson, rebinNdjson, rebinRowCells, rebinSummaryText,
+  renderRebinReport,
 } from '../../src/index.js';
+import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { CalendarOptions, RebinOptions, RebinResult } from '../../src/index.js';
 import type { CommandContext } from '../program.js';
 import { makeProgress } from '../progress.js';
@@ -45,6 +47,7 @@ interface RebinFlags {
   agg?: string[]; by?: string[]; fill: boolean; from?: string; until?: string; maxPeriods?: string; assign?: string;
   sourceUnit?: string; sourceAnchor?: 'start' | 'end'; timeFormat?: string; dayFirst?: boolean; monthFirst?: boolean; quantileType?: string;
   format: 'csv' | 'json' | 'ndjson'; out: string; delimiter?: string; maxBuffered?: string; maxDistinct?: string; quiet?: boolean;
+  report?: string;
 }
 
 export function registerRebin(program: Command, ctx: CommandContext): void {
@@ -78,6 +81,7 @@ export function registerRebin(program: Command, ctx: CommandContext): void {
     .option('--max-buffered <n>', 'values kept for exact medians and quantiles, all periods together (default 20,000,000)')
     .option('--max-distinct <n>', 'values kept for distinct counts, all periods together (default 2,000,000)')
     .option('-q, --quiet', 'no summary on standard error')
+    .option('--report <file.html>', REPORT_HELP)
     .addHelpText('after', EXAMPLES)
     .action(async (file: string, flags: RebinFlags) => {
       const options = rebinOptions(flags);
@@ -93,6 +97,7 @@ export function registerRebin(program: Command, ctx: CommandContext): void {
         reader.close();
       }
       await writeResult(result, flags, ctx);
+      await writeReport(flags.report, () => renderRebinReport(result), ctx.io);
       if (!flags.quiet && flags.format !== 'json') ctx.io.stderr.write(rebinSummaryText(result));
     });
 }
