@@ -1,6 +1,6 @@
 // The commander program, testable in-process: run(argv, io) resolves to an exit status.
 import { Command, CommanderError } from 'commander';
-import { isQuernError } from '../src/index.js';
+import { isQuernError, terminalSafe } from '../src/index.js';
 import type { CliIO } from './io.js';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, exitStatusFor } from './exit.js';
 import { commands } from './commands/index.js';
@@ -57,13 +57,14 @@ export async function run(argv: readonly string[], io: CliIO): Promise<number> {
       return e.exitCode === 0 ? EXIT_OK : EXIT_USAGE;
     }
     if (isQuernError(e)) {
-      io.stderr.write(`quern: ${e.message}\n`);
-      if (e.hint) io.stderr.write(`hint: ${e.hint}\n`);
+      // A message may quote a file name or a value from the data: never let it drive the terminal.
+      io.stderr.write(`quern: ${terminalSafe(e.message)}\n`);
+      if (e.hint) io.stderr.write(`hint: ${terminalSafe(e.hint)}\n`);
       return exitStatusFor(e.code);
     }
     if (isBrokenPipe(e)) return status;
     const msg = e instanceof Error ? e.message : String(e);
-    io.stderr.write(`quern: internal error: ${msg}\n`);
+    io.stderr.write(`quern: internal error: ${terminalSafe(msg)}\n`);
     io.stderr.write('hint: this is a bug in quern; please report it with the command you ran.\n');
     return EXIT_INTERNAL;
   }

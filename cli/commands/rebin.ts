@@ -36,6 +36,9 @@ Rules:
   (Hyndman-Fan type 7 unless --quantile-type), keeping each period's values; distinct counts are exact.
   Source values that are periods (weeks, months) must nest in the target unit, or take --assign.
   Rows read = used + empty time + rejected + outside --from/--until; the summary shows each.
+  CSV cells a spreadsheet would run as formulas (a leading =, +, -, @, tab, CR or LF) are neutralised with a
+  leading ' (OWASP CSV injection guidance); plain numbers such as -5 stay numbers. --no-neutralise turns this
+  off for trusted pipelines.
 
 Caution: ISO weeks start on Monday, epidemiological (CDC MMWR) weeks on Sunday, and week 1, week 53 and
 fiscal-year names differ between authorities (US federal FY2024 = 2023-10-01..2024-09-30). Check the
@@ -47,7 +50,7 @@ interface RebinFlags {
   agg?: string[]; by?: string[]; fill: boolean; from?: string; until?: string; maxPeriods?: string; assign?: string;
   sourceUnit?: string; sourceAnchor?: 'start' | 'end'; timeFormat?: string; dayFirst?: boolean; monthFirst?: boolean; quantileType?: string;
   format: 'csv' | 'json' | 'ndjson'; out: string; delimiter?: string; maxBuffered?: string; maxDistinct?: string; quiet?: boolean;
-  report?: string;
+  report?: string; neutralise: boolean;
 }
 
 export function registerRebin(program: Command, ctx: CommandContext): void {
@@ -78,6 +81,7 @@ export function registerRebin(program: Command, ctx: CommandContext): void {
     .addOption(new Option('--format <format>', 'output format').choices(['csv', 'json', 'ndjson']).default('csv'))
     .option('--out <file>', "write to a file (atomically) instead of standard output", '-')
     .option('--delimiter <char>', 'input field delimiter (default: sniffed)')
+    .option('--no-neutralise', 'do not neutralise formula-like cells in CSV output (trusted pipelines only)')
     .option('--max-buffered <n>', 'values kept for exact medians and quantiles, all periods together (default 20,000,000)')
     .option('--max-distinct <n>', 'values kept for distinct counts, all periods together (default 2,000,000)')
     .option('-q, --quiet', 'no summary on standard error')
@@ -139,9 +143,10 @@ async function writeResult(result: RebinResult, f: RebinFlags, ctx: CommandConte
     if (f.format === 'json') await out.write(rebinJson(result));
     else if (f.format === 'ndjson') await out.write(rebinNdjson(result));
     else {
-      let chunk = csvRow(result.columns);
+      const csv = { neutraliseFormulas: f.neutralise };
+      let chunk = csvRow(result.columns, csv);
       for (const row of result.rows) {
-        chunk += csvRow(rebinRowCells(row));
+        chunk += csvRow(rebinRowCells(row), csv);
         if (chunk.length > 1 << 16) {
           await out.write(chunk);
           chunk = '';
