@@ -130,6 +130,9 @@ function summarize(reader: TableReader, o: RebinOptions, setup: ScanSetup, scan:
   if (setup.time.kind === 'local' && o.calendar.zone === undefined) {
     notes.push('the values carry no offset and were read as wall-clock time in UTC; pass --zone to read them in a zone');
   }
+  if (c.leapSeconds > 0) {
+    notes.push(`${c.leapSeconds} value${c.leapSeconds === 1 ? ' was a leap second' : 's were leap seconds'} (23:59:60, first on line ${c.firstLeapSecondLine}), read as 23:59:59.999 so ${c.leapSeconds === 1 ? 'it stays' : 'they stay'} in ${c.leapSeconds === 1 ? 'its' : 'their'} own minute and day`);
+  }
   const summary: RebinSummary = {
     file: reader.file, rowsRead: t.rowsRead, rowsUsed: c.used, rowsEmpty: c.empty, rowsRejected: t.rowsRejected + c.rejected,
     rejectedByReason, rowsOutside: c.outside, examples: [...t.examples, ...c.examples].slice(0, o.maxExamples ?? 5),

@@ -57,13 +57,16 @@ export interface ScanCounts {
   sourceUnit: UnitName | null;
   /** Distinct written offsets (minutes) of instants, up to a few, for the zone note. */
   offsets: Set<number>;
+  /** Values written as a leap second (23:59:60), read as 23:59:59.999, and the line of the first. */
+  leapSeconds: number;
+  firstLeapSecondLine: number;
 }
 
 /** Streams batches into the cells of `setup.store`. */
 export class RebinScan {
   readonly counts: ScanCounts = {
     used: 0, empty: 0, outside: 0, rejected: 0, rejectedByReason: {}, examples: [], extremes: emptyExtremes(),
-    periodRows: 0, straddling: 0, firstStraddle: null, sourceUnit: null, offsets: new Set(),
+    periodRows: 0, straddling: 0, firstStraddle: null, sourceUnit: null, offsets: new Set(), leapSeconds: 0, firstLeapSecondLine: 0,
   };
   private readonly s: ScanSetup;
   private readonly pt: ParsedTime = emptyParsedTime();
@@ -98,6 +101,7 @@ export class RebinScan {
         this.reject(r.code, b.lines[i]!, text, r.message);
         continue;
       }
+      if (pt.leapSecond && counts.leapSeconds++ === 0) counts.firstLeapSecondLine = b.lines[i]!;
       if (pt.kind === 'period') {
         this.addPeriodRow(b, i, text);
         continue;
