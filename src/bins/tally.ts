@@ -37,6 +37,8 @@ export interface BucketSummary {
   invalid: Outcome & { byReason: Record<string, number> };
   /** Values with a fraction put in whole-number buckets (completed units: 4.5 is in 0-4). */
   nonInteger: Outcome;
+  /** Values written with a percent sign, bucketed as the number before it (12% as 12). */
+  percent: Outcome;
   merged: MergedEdge[];
   notes: string[];
 }
@@ -53,6 +55,7 @@ export class BucketTally {
   readonly empty = { ...outcome(), byReason: {} as Record<string, number> };
   readonly invalid = { ...outcome(), byReason: {} as Record<string, number> };
   readonly nonInteger = outcome();
+  readonly percent = outcome();
 
   constructor(readonly set: BucketSet, private readonly maxExamples = 5) {
     this.bucketer = makeBucketer(set.buckets);
@@ -76,6 +79,7 @@ export class BucketTally {
       this.invalid.byReason[parsed.reason!] = (this.invalid.byReason[parsed.reason!] ?? 0) + 1;
       return -5;
     }
+    if (parsed.percent) this.note(this.percent, line, text);
     const k = this.bucketer.assign(parsed.value);
     if (k >= 0) {
       this.counts[k]!++;
@@ -93,11 +97,17 @@ export class BucketTally {
       low: b.range.low, high: b.range.high, lowClosed: b.range.lowClosed, highClosed: b.range.highClosed,
       count: this.counts[i]!, share: bucketed === 0 ? 0 : this.counts[i]! / bucketed,
     }));
-    const { discrete, closed, source, merged, notes } = this.set;
+    const { discrete, closed, source, merged } = this.set;
+    const notes = [...this.set.notes];
+    const p = this.percent;
+    if (p.count > 0) {
+      const first = p.examples[0]!;
+      notes.push(`${p.count} value${p.count === 1 ? '' : 's'} carried a percent sign and ${p.count === 1 ? 'was' : 'were'} bucketed as the number before it (first: ${JSON.stringify(first.value)} on line ${first.line})`);
+    }
     return {
       file, value, source, discrete, closed, rowsRead, rowsRejected, rejectedByReason, bucketed, buckets,
       below: this.below, above: this.above, between: this.between, empty: this.empty, invalid: this.invalid,
-      nonInteger: this.nonInteger, merged, notes,
+      nonInteger: this.nonInteger, percent: this.percent, merged, notes,
     };
   }
 }

@@ -117,11 +117,8 @@ describe('quern bucket on hostile numbers accounts for every row', () => {
     expect([p.status, p.value, p.percent]).toEqual(['ok', 12, true]);
   });
 
-  // BUG: `12%` is bucketed as the number 12 with nothing in the summary saying a percent sign was dropped
-  // (notes: [], no count): a silent coercion (team brief: "No silent coercion"). The number parser flags it
-  // (ParsedNumber.percent) but src/bins (tally/run) does not count or report it. Expected: a note or a count
-  // of values read with a percent sign, with an example line.
-  it.fails('says in the bucket summary that a value carried a percent sign', async () => {
+  // No silent coercion: a value read with its percent sign dropped is counted and noted, with its line.
+  it('says in the bucket summary that a value carried a percent sign', async () => {
     const j = await bucketJson([numbers, '--value', 'age', '--edges', '0,5,10', '--open-high']);
     expect(JSON.stringify({ notes: j.notes, keys: Object.keys(j) })).toMatch(/percent|%/);
   });
