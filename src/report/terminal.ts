@@ -177,8 +177,10 @@ export function periodStrip(states: readonly PeriodState[], options: StripOption
   const strip = cells.map((s) => (s === 'present' ? STRIP_GLYPHS[s] : paint(STRIP_GLYPHS[s], SGR[s], options.color))).join('');
   if (options.legend === false) return strip;
   const count = (s: PeriodState) => states.filter((x) => x === s).length;
+  // A duplicated period is present too: the legend says "once" and "more than once" so its counts add up.
+  const words: Record<PeriodState, string> = { present: 'once', missing: 'missing', duplicated: 'more than once' };
   const parts = (['present', 'missing', 'duplicated'] as const).map(
-    (s) => `${paint(STRIP_GLYPHS[s], s === 'present' ? SGR.bar : SGR[s], options.color)} ${s} ${formatNumber(count(s))}`,
+    (s) => `${paint(STRIP_GLYPHS[s], s === 'present' ? SGR.bar : SGR[s], options.color)} ${words[s]} ${formatNumber(count(s))}`,
   );
   const scale = per > 1 ? `  (1 cell = ${per} periods; a cell shows missing or duplicated if any of its periods is)` : '';
   return `${strip}\n${parts.join('  ')}${scale}`;

@@ -85,7 +85,7 @@ describe('periodStrip(states, {width})', () => {
     const out = periodStrip(['present', 'missing', 'duplicated', 'present']);
     const [strip, legend] = out.split('\n');
     expect(strip).toBe('█·▲█');
-    expect(legend).toBe('█ present 2  · missing 1  ▲ duplicated 1');
+    expect(legend).toBe('█ once 2  · missing 1  ▲ more than once 1');
   });
 
   it('periodStrip(states, {width}) folds long series and keeps a single missing period visible', () => {
@@ -102,7 +102,7 @@ describe('periodStrip(states, {width})', () => {
     fc.assert(
       fc.property(fc.array(fc.constantFrom<PeriodState>('present', 'missing', 'duplicated'), { maxLength: 300 }), (states) => {
         const legend = periodStrip(states, { width: 40 }).split('\n')[1];
-        const counts = [...legend.matchAll(/(present|missing|duplicated) ([\d,]+)/g)].map((m) => Number(m[2].replace(/,/g, '')));
+        const counts = [...legend.matchAll(/(once|missing|more than once) ([\d,]+)/g)].map((m) => Number(m[2].replace(/,/g, '')));
         expect(counts.reduce((a, b) => a + b, 0)).toBe(states.length);
       }),
       { numRuns: RUNS },
