@@ -3,7 +3,8 @@
 import { makeCalendar } from '../calendar/index.js';
 import type { Calendar } from '../calendar/types.js';
 import { QuernError } from '../errors.js';
-import type { ColumnBatch, TableReader } from '../table/types.js';
+import type { ByteBatch, ColumnBatch, TableReader } from '../table/types.js';
+import { byteFieldString } from '../table/byte-batch.js';
 import { getZone } from '../time/zone.js';
 import type { Zone } from '../time/zone.js';
 import { CellStore, DEFAULT_LIMITS } from './accumulate.js';
@@ -43,6 +44,13 @@ export async function rebin(reader: TableReader, options: RebinOptions): Promise
   const groups = new GroupIndex(by.length);
   if (by.length === 0) groups.idOf1('');
   const resolver = new LocalResolver(zone);
+  const make = (first: ColumnBatch): ScanSetup => makeSetup(reader, options, cal, first, slot, by, measureCols, needs, store, groups, resolver);
+  // The fast engine reads the time column as bytes, when it is needed nowhere else (a --by or measure
+  // on it reads its text); the reference engine keeps the string path, so the two can be compared.
+  if (reader.engine === 'fast' && !by.includes(options.time) && !measureCols.includes(options.time)) {
+    const { setup, scan } = await scanBytes(reader, columns, make, (ms) => zone.toWall(ms));
+    return finish(reader, options, cal, zone, setup, scan, aggs, by, measureCols);
+  }
   let scan: RebinScan | null = null;
   let setup: ScanSetup | null = null;
   for await (const b of reader.batches(columns)) {
@@ -57,6 +65,51 @@ export async function rebin(reader: TableReader, options: RebinOptions): Promise
     scan = new RebinScan(setup, (ms) => zone.toWall(ms));
   }
   return finish(reader, options, cal, zone, setup, scan, aggs, by, measureCols);
+}
+
+/**
+ * Reads the table as byte batches (the time column as bytes, the others as strings) into a RebinScan.
+ * The scan is set up from the same first rows that `batches` would give as its first batch, so the
+ * inferred time and number formats are the same.
+ */
+async function scanBytes(reader: TableReader, columns: readonly string[], make: (first: ColumnBatch) => ScanSetup,
+  toWall: (ms: number) => number): Promise<{ setup: ScanSetup; scan: RebinScan }> {
+  const want = Math.min(SAMPLE, reader.batchSize);
+  const pending: ByteBatch[] = [];
+  let have = 0;
+  let ready: { setup: ScanSetup; scan: RebinScan } | null = null;
+  const view = (b: ByteBatch): ColumnBatch => ({ length: b.length, lines: b.lines, values: [[], ...b.values] });
+  const start = (): { setup: ScanSetup; scan: RebinScan } => {
+    const setup = make(sampleOf(pending, want, columns.length));
+    const scan = new RebinScan(setup, toWall);
+    for (const p of pending) scan.bytes(p, view(p));
+    pending.length = 0;
+    return { setup, scan };
+  };
+  for await (const b of reader.byteBatches([columns[0]!], columns.slice(1))) {
+    if (ready !== null) {
+      ready.scan.bytes(b, view(b));
+      continue;
+    }
+    pending.push(b);
+    have += b.length;
+    if (have >= want) ready = start();
+  }
+  return ready ?? start();
+}
+
+/** The first `n` rows of byte batches as a string batch of all columns (time first), for inference. */
+function sampleOf(batches: readonly ByteBatch[], n: number, width: number): ColumnBatch {
+  const values: string[][] = Array.from({ length: width }, () => []);
+  const lines: number[] = [];
+  for (const b of batches) {
+    for (let i = 0; i < b.length && lines.length < n; i++) {
+      lines.push(b.lines[i]!);
+      values[0]!.push(byteFieldString(b, 0, i));
+      for (let c = 1; c < width; c++) values[c]!.push(b.values[c - 1]![i]!);
+    }
+  }
+  return { length: lines.length, lines, values };
 }
 
 // After the scan: the policy check, the fill range and its guard, the rows and the summary.

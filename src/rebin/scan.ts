@@ -4,7 +4,8 @@
 import type { Calendar, UnitName } from '../calendar/types.js';
 import type { Diagnostic } from '../errors.js';
 import { QuernError, shortValue } from '../errors.js';
-import type { ColumnBatch } from '../table/types.js';
+import type { ByteBatch, ColumnBatch } from '../table/types.js';
+import { byteFieldString } from '../table/byte-batch.js';
 import type { ParsedTime } from '../time/types.js';
 import { emptyParsedTime } from '../time/types.js';
 import type { CellStore } from './accumulate.js';
@@ -62,6 +63,15 @@ export interface ScanCounts {
   firstLeapSecondLine: number;
 }
 
+/** True when the bytes buf[s, e) are empty or only spaces and tabs (as `isBlank` says of their text). */
+function blankBytes(buf: Buffer, s: number, e: number): boolean {
+  for (let i = s; i < e; i++) {
+    const c = buf[i];
+    if (c !== 32 && c !== 9) return false;
+  }
+  return true;
+}
+
 /** Streams batches into the cells of `setup.store`. */
 export class RebinScan {
   readonly counts: ScanCounts = {
@@ -106,17 +116,7 @@ export class RebinScan {
         this.addPeriodRow(b, i, text);
         continue;
       }
-      let ms = pt.ms;
-      if (pt.kind === 'local') ms = s.resolver.resolve(ms);
-      else if (counts.offsets.size < 4 && pt.offset !== 0) counts.offsets.add(pt.offset);
-      // Event logs are mostly in time order: reuse the last period while the instant stays inside it.
-      let key = this.lastKey;
-      if (!(ms >= this.lastLo && ms < this.lastHi)) {
-        key = s.cal.index(ms);
-        this.lastKey = key;
-        this.lastLo = s.cal.startOf(key);
-        this.lastHi = s.cal.startOf(key + 1);
-      }
+      const key = this.keyOf(pt);
       if ((s.fromKey !== null && key < s.fromKey) || (s.untilKey !== null && key > s.untilKey)) {
         counts.outside++;
         continue;
@@ -126,6 +126,65 @@ export class RebinScan {
       const g = ungrouped ? 0 : s.groups.idOfRow(b.values, s.bySlots, i);
       this.add(b, i, s.store.cell(g, key), 1, 0);
     }
+  }
+
+  /**
+   * Adds every row of byte batch `b`, whose byte column 0 is the time column; `view` holds the other
+   * columns as strings at their slots (slot 0 unused). Same results as `batch` on the same rows: the
+   * time is parsed from its bytes, and its text is made only for the rows that need it (rejections,
+   * source periods, new extremes).
+   */
+  bytes(b: ByteBatch, view: ColumnBatch): void {
+    const { s, pt, counts } = this;
+    const starts = b.starts[0]!;
+    const ends = b.ends[0]!;
+    const decoded = b.decoded[0]!;
+    const ungrouped = s.bySlots.length === 0;
+    const x = counts.extremes;
+    for (let i = 0; i < b.length; i++) {
+      const buf = decoded[i] === 1 ? b.side : b.buf;
+      const st = starts[i]!;
+      const en = ends[i]!;
+      if (blankBytes(buf, st, en)) {
+        counts.empty++;
+        continue;
+      }
+      const reason = s.time.parseBytes(buf, st, en, pt);
+      if (reason !== null) {
+        const r = splitReason(reason);
+        this.reject(r.code, b.lines[i]!, byteFieldString(b, 0, i), r.message);
+        continue;
+      }
+      if (pt.leapSecond && counts.leapSeconds++ === 0) counts.firstLeapSecondLine = b.lines[i]!;
+      if (pt.kind === 'period') {
+        this.addPeriodRow(view, i, byteFieldString(b, 0, i));
+        continue;
+      }
+      const key = this.keyOf(pt);
+      if ((s.fromKey !== null && key < s.fromKey) || (s.untilKey !== null && key > s.untilKey)) {
+        counts.outside++;
+        continue;
+      }
+      counts.used++;
+      if (key < x.minKey || key > x.maxKey) noteExtreme(x, key, b.lines[i]!, byteFieldString(b, 0, i));
+      const g = ungrouped ? 0 : s.groups.idOfRow(view.values, s.bySlots, i);
+      this.add(view, i, s.store.cell(g, key), 1, 0);
+    }
+  }
+
+  /** The period key of an instant or wall-clock reading in `pt`, through the last-period cache. */
+  private keyOf(pt: ParsedTime): number {
+    const { s, counts } = this;
+    let ms = pt.ms;
+    if (pt.kind === 'local') ms = s.resolver.resolve(ms);
+    else if (counts.offsets.size < 4 && pt.offset !== 0) counts.offsets.add(pt.offset);
+    // Event logs are mostly in time order: reuse the last period while the instant stays inside it.
+    if (ms >= this.lastLo && ms < this.lastHi) return this.lastKey;
+    const key = s.cal.index(ms);
+    this.lastKey = key;
+    this.lastLo = s.cal.startOf(key);
+    this.lastHi = s.cal.startOf(key + 1);
+    return key;
   }
 
   private add(b: ColumnBatch, i: number, c: number, w: number, piece: number): void {

@@ -5,6 +5,8 @@ import type { TimeFormat } from '../time/format.js';
 import { inferTimeFormat } from '../time/infer.js';
 import type { InferHints } from '../time/infer-types.js';
 import { makeTimeParser } from '../time/parser.js';
+import { makeTimeBytesParser } from '../time/bytes-parser.js';
+import type { TimeBytesParser } from '../time/bytes-parser.js';
 import type { TimeParserOptions } from '../time/parser.js';
 import type { ParsedTime } from '../time/types.js';
 import { isBlank } from './measures.js';
@@ -16,6 +18,8 @@ export interface TimeReading {
   kind: 'instant' | 'local' | 'period';
   /** Fills `out`; returns null, or why the text is not a time of this format. */
   parse(text: string, out: ParsedTime): string | null;
+  /** The same parser over UTF-8 bytes (same results and reasons), for byte batches. */
+  parseBytes: TimeBytesParser;
 }
 
 /** Inference hints from a column name and a stated day order. */
@@ -36,7 +40,8 @@ export function splitReason(reason: string): { code: string; message: string } {
 export function timeReading(sample: readonly string[], formatId: string | null, options: TimeParserOptions & InferHints = {}): TimeReading {
   const format = formatId !== null ? formatOf(formatId) : inferFormat(sample, options);
   const parse = makeTimeParser(format, options);
-  return { id: format.id, label: format.label, kind: format.kind, parse };
+  const parseBytes = makeTimeBytesParser(format, options);
+  return { id: format.id, label: format.label, kind: format.kind, parse, parseBytes };
 }
 
 function formatOf(id: string): TimeFormat {

@@ -21,6 +21,14 @@ export const enum Scan {
   Unterminated = 3,
 }
 
+/** Bytes that end a field's text in `scanPlain`. */
+const enum Kind {
+  Delimiter = 1,
+  Lf = 2,
+  Quote = 3,
+  Cr = 4,
+}
+
 /** Scans records field by field; the last record's bounds are left in its public fields. */
 export class CsvScanner {
   /** Field bounds of the last record: field k is bytes [starts[k], ends[k]). */
@@ -37,6 +45,9 @@ export class CsvScanner {
   /** True when the record is one unquoted empty field: a blank line. */
   blank = false;
   private readonly special = new Uint8Array(256);
+  /** What each byte is to `scanPlain`: 0 field text, then the Kind codes (a table look-up per byte
+   *  measured about 1.7× faster than four comparisons; test/bench/table-read.mjs). */
+  private readonly kinds = new Uint8Array(256);
 
   constructor(
     readonly delimiter: number,
@@ -47,6 +58,10 @@ export class CsvScanner {
     this.ends = new Int32Array(capacity);
     this.escaped = new Uint8Array(capacity);
     for (const b of [delimiter, QUOTE, LF, CR]) this.special[b] = 1;
+    this.kinds[QUOTE] = Kind.Quote;
+    this.kinds[LF] = Kind.Lf;
+    this.kinds[CR] = Kind.Cr;
+    this.kinds[delimiter] = Kind.Delimiter;
   }
 
   private store(start: number, end: number, escaped: number): void {
@@ -79,31 +94,30 @@ export class CsvScanner {
    * locals only. False when the record has a quote or runs past `len`; then call `scan`.
    */
   scanPlain(buf: Uint8Array, pos: number, len: number): boolean {
-    const delim = this.delimiter;
-    const { starts, ends, escaped } = this;
+    const { starts, ends, escaped, kinds } = this;
     const cap = this.capacity;
     let i = pos;
     let start = pos;
     let f = 0;
     for (;;) {
-      let c = 0;
+      let k = 0;
       for (; i < len; i++) {
-        c = buf[i]!;
-        if (c === delim || c === LF || c === QUOTE || c === CR) break;
+        k = kinds[buf[i]!]!;
+        if (k !== 0) break;
       }
-      if (i >= len || c === QUOTE) return false;
+      if (i >= len || k === Kind.Quote) return false;
       if (f < cap) {
         starts[f] = start;
         ends[f] = i;
         escaped[f] = 0;
       }
       f++;
-      if (c === delim) {
+      if (k === Kind.Delimiter) {
         start = ++i;
         continue;
       }
       let end = i + 1;
-      if (c === CR) {
+      if (k === Kind.Cr) {
         if (end >= len) return false;
         if (buf[end] === LF) end++;
       }

@@ -5,29 +5,37 @@ import { CsvScanner, Scan } from './csv-scan.js';
 import type { BodyContext } from './body.js';
 import type { ByteSource } from './source.js';
 import { rowPreview, rejectMalformed, rejectRagged, rejectUndecodable } from './body.js';
-import { asciiString } from './ascii.js';
-import { BatchBuilder } from './batch.js';
+import { ByteBatchBuilder } from './byte-batch.js';
 import { nextBuffer } from './chunks.js';
-import type { ColumnBatch } from './types.js';
+import { StringSink, type RowSink } from './row-sink.js';
+import type { ByteBatch, ColumnBatch } from './types.js';
 
 const LF = 0x0a;
 const CR = 0x0d;
 
-/** Node's own UTF-8 decoder behind Buffer#toString, called directly to skip its argument checks. */
-interface DirectSlices {
-  utf8Slice(start: number, end: number): string;
-}
-
-/** Index just after the last line-break byte in buf, or 0; UTF-8 sequences never contain CR or LF. */
+/**
+ * Index just after the last line-break byte in buf, or 0; UTF-8 sequences never contain CR or LF.
+ * Only the bytes after the last LF are searched for a CR (a file without CR would otherwise be
+ * searched end to end, once more per chunk).
+ */
 function afterLastBreak(buf: Buffer): number {
   const a = buf.lastIndexOf(LF);
-  const b = buf.lastIndexOf(CR);
-  return Math.max(a, b) + 1;
+  for (let i = buf.length - 1; i > a; i--) if (buf[i] === CR) return i + 1;
+  return a + 1;
 }
 
 /** Reads the body of a CSV/TSV input in batches of the requested columns. */
-export async function* fastCsvBatches(ctx: BodyContext): AsyncGenerator<ColumnBatch> {
-  const body = new FastBody(ctx);
+export function fastCsvBatches(ctx: BodyContext): AsyncGenerator<ColumnBatch> {
+  return fastCsvRead(ctx, new StringSink(ctx.columns, ctx.batchSize));
+}
+
+/** Reads the body of a CSV/TSV input in byte batches: offsets of `ctx.columns`, strings of `stringColumns`. */
+export function fastCsvByteBatches(ctx: BodyContext, stringColumns: readonly number[]): AsyncGenerator<ByteBatch> {
+  return fastCsvRead(ctx, new ByteBatchBuilder(ctx.columns, stringColumns, ctx.batchSize));
+}
+
+async function* fastCsvRead<B>(ctx: BodyContext, sink: RowSink<B>): AsyncGenerator<B> {
+  const body = new FastBody(ctx, sink);
   let carry: Buffer | null = null;
   for (;;) {
     const next: { buf: Buffer | null; final: boolean } =
@@ -38,7 +46,7 @@ export async function* fastCsvBatches(ctx: BodyContext): AsyncGenerator<ColumnBa
       const pos = body.consume(buf, final);
       if (pos < buf.length) carry = buf.subarray(pos);
     }
-    for (const b of body.builder.take(final)) yield b;
+    for (const b of sink.take(final)) yield b;
     if (final) break;
   }
   ctx.account.lines = body.line - (body.endsWithBreak ? 1 : 0);
@@ -51,7 +59,7 @@ const BRIDGE = 1 << 16;
  * then hands on the rest of that chunk without copying it. Falls back to joining whole buffers when
  * the tail's record runs past the bridge.
  */
-async function bridged(body: FastBody, source: ByteSource, carry: Buffer): Promise<{ buf: Buffer | null; final: boolean }> {
+async function bridged<B>(body: FastBody<B>, source: ByteSource, carry: Buffer): Promise<{ buf: Buffer | null; final: boolean }> {
   const chunk = await source.read();
   if (chunk === null) return { buf: carry, final: true };
   const bridge = Buffer.concat([carry, chunk.subarray(0, Math.min(chunk.length, BRIDGE))]);
@@ -62,28 +70,30 @@ async function bridged(body: FastBody, source: ByteSource, carry: Buffer): Promi
 }
 
 /** The state of one read, and the hot loop over one buffer (kept out of the generator, which V8 optimises less). */
-class FastBody {
+class FastBody<B> {
   readonly scanner: CsvScanner;
-  readonly builder: BatchBuilder;
   line: number;
   endsWithBreak: boolean;
 
-  constructor(private readonly ctx: BodyContext) {
+  constructor(
+    private readonly ctx: BodyContext,
+    private readonly sink: RowSink<B>,
+  ) {
     this.scanner = new CsvScanner(ctx.delimiter, ctx.width + 1);
-    this.builder = new BatchBuilder(ctx.columns.length, ctx.batchSize);
     this.line = ctx.startLine;
     this.endsWithBreak = ctx.headerEndsWithBreak;
   }
 
   /** Reads the whole records in buf; returns the offset where the unfinished tail begins. */
   consume(buf: Buffer, final: boolean): number {
-    const { ctx, scanner, builder } = this;
-    const { account, width, columns } = ctx;
+    const { ctx, scanner, sink } = this;
+    const { account, width } = ctx;
     const len = buf.length;
     if (len > 0) this.endsWithBreak = buf[len - 1] === LF || buf[len - 1] === CR;
     const region = buf.subarray(0, final ? len : afterLastBreak(buf));
     const ascii = isAscii(region);
     const valid = ascii || isUtf8(region);
+    sink.begin(buf, ascii);
     let line = this.line;
     let pos = 0;
     let passed = 0;
@@ -91,8 +101,7 @@ class FastBody {
       const r = scanner.scanPlain(buf, pos, len) ? Scan.Record : scanner.scan(buf, pos, len, final);
       if (r === Scan.NeedMore) break;
       if (r === Scan.Record && !scanner.blank && scanner.fieldCount === width && (valid || isUtf8(buf.subarray(pos, scanner.end)))) {
-        decodeRow(buf, ascii, scanner, columns, builder);
-        builder.commit(line);
+        sink.row(buf, ascii, scanner, line);
         passed++;
       } else this.other(r, buf, pos, line, valid);
       line += scanner.breaks;
@@ -112,26 +121,6 @@ class FastBody {
     else if (scanner.blank) ctx.account.blankLines++;
     else if (!valid && !isUtf8(buf.subarray(pos, end))) rejectUndecodable(ctx, line, firstBadField(buf, scanner), preview);
     else rejectRagged(ctx, line, scanner.fieldCount, preview);
-  }
-}
-
-function decodeRow(
-  buf: Buffer,
-  ascii: boolean,
-  scanner: CsvScanner,
-  columns: readonly number[],
-  builder: BatchBuilder,
-): void {
-  const { starts, ends, escaped } = scanner;
-  const out = builder.columns;
-  const n = builder.length;
-  for (let c = 0; c < columns.length; c++) {
-    const k = columns[c]!;
-    const s = starts[k]!;
-    const e = ends[k]!;
-    let v = ascii ? asciiString(buf, s, e) : s === e ? '' : (buf as unknown as DirectSlices).utf8Slice(s, e);
-    if (escaped[k] === 1) v = v.replaceAll('""', '"');
-    out[c]![n] = v;
   }
 }
 

@@ -5,10 +5,12 @@ export type {
   TableEngine,
   TableOptions,
   ColumnBatch,
+  ByteBatch,
   ReadSummary,
   TableReader,
 } from './types.js';
 export { openTable } from './open.js';
+export { byteFieldString } from './byte-batch.js';
 export type { RejectReason } from './accounting.js';
 export { editDistance, nearestName } from './columns.js';
 export { formatFromName, sniffDelimiter, sniffFormat, parseDelimiter, CANDIDATE_DELIMITERS } from './sniff.js';

@@ -3,13 +3,15 @@
 import { QuernError } from '../errors.js';
 import { RowAccount } from './accounting.js';
 import { findColumn } from './columns.js';
-import { fastCsvBatches } from './fast-csv.js';
+import { fastCsvBatches, fastCsvByteBatches } from './fast-csv.js';
 import { scanCsvHeader } from './header.js';
 import { ndjsonBatches, scanNdjsonHeader } from './ndjson.js';
 import { referenceCsvBatches } from './reference-csv.js';
 import { formatFromName, parseDelimiter, sniffDelimiter, sniffFormat } from './sniff.js';
 import { openSource, type ByteSource } from './source.js';
-import type { ColumnBatch, TableEngine, TableFormat, TableOptions, TableReader } from './types.js';
+import type { BodyContext } from './body.js';
+import { toByteBatches } from './to-bytes.js';
+import type { ByteBatch, ColumnBatch, TableEngine, TableFormat, TableOptions, TableReader } from './types.js';
 
 const SNIFF_BYTES = 64 * 1024;
 const BOM = [0xef, 0xbb, 0xbf];
@@ -82,6 +84,7 @@ export async function openTable(file: string, options: TableOptions = {}): Promi
     delimiter: start.delimiter,
     engine,
     totalBytes: source.totalBytes,
+    batchSize,
     columnIndex: (name) => findColumn(file, header, name),
     batches(columns) {
       const idx = columns.map((c) => findColumn(file, header, c));
@@ -89,31 +92,47 @@ export async function openTable(file: string, options: TableOptions = {}): Promi
       used = true;
       return stream(idx);
     },
+    byteBatches(byteColumns, stringColumns = []) {
+      const bytes = byteColumns.map((c) => findColumn(file, header, c));
+      const strings = stringColumns.map((c) => findColumn(file, header, c));
+      if (used) throw new QuernError('E_USAGE', `${file}: batches() may be read only once per openTable`);
+      used = true;
+      return byteStream(bytes, strings);
+    },
     summary: () =>
       account.summary({ bytesRead: source.bytesRead(), bytesDecoded: source.bytesDecoded(), format: start.format, delimiter: start.delimiter, engine }),
     close: () => source.close(),
   };
-  async function* stream(idx: number[]): AsyncGenerator<ColumnBatch> {
+  const csvContext = (idx: readonly number[]): BodyContext => ({
+    source,
+    width: header.length,
+    header,
+    columns: idx,
+    delimiter: start.delimiter.charCodeAt(0),
+    account,
+    batchSize,
+    startLine: start.startLine,
+    headerEndsWithBreak: start.endsWithBreak,
+  });
+  const stringBody = (idx: readonly number[]): AsyncGenerator<ColumnBatch> =>
+    start.format === 'ndjson'
+      ? ndjsonBatches({ source, header, columns: idx, account, batchSize, startLine: start.startLine })
+      : (engine === 'reference' ? referenceCsvBatches : fastCsvBatches)(csvContext(idx));
+  async function* run<B>(body: AsyncGenerator<B>): AsyncGenerator<B> {
     try {
-      const body =
-        start.format === 'ndjson'
-          ? ndjsonBatches({ source, header, columns: idx, account, batchSize, startLine: start.startLine })
-          : (engine === 'reference' ? referenceCsvBatches : fastCsvBatches)({
-              source,
-              width: header.length,
-              header,
-              columns: idx,
-              delimiter: start.delimiter.charCodeAt(0),
-              account,
-              batchSize,
-              startLine: start.startLine,
-              headerEndsWithBreak: start.endsWithBreak,
-            });
       yield* body;
       account.complete = true;
     } finally {
       source.close();
     }
   }
+  const stream = (idx: number[]): AsyncGenerator<ColumnBatch> => run(stringBody(idx));
+  // The fast CSV path delivers offsets into its own buffers; the others write their strings out as bytes.
+  const byteStream = (bytes: number[], strings: number[]): AsyncGenerator<ByteBatch> =>
+    run(
+      start.format !== 'ndjson' && engine === 'fast'
+        ? fastCsvByteBatches(csvContext(bytes), strings)
+        : toByteBatches(stringBody([...bytes, ...strings]), bytes.length),
+    );
   return reader;
 }

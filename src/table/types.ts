@@ -36,6 +36,31 @@ export interface ColumnBatch {
   values: string[][];
 }
 
+/**
+ * A batch of rows as bytes, for hot paths that read a field without making a string of it. For row i of
+ * requested byte column c the field's bytes are `buf[starts[c][i], ends[c][i])` — or, where
+ * `decoded[c][i]` is 1, `side[starts[c][i], ends[c][i])`: a quoted field whose doubled quotes were
+ * undone (RFC 4180 §2.7). Quotes around a field are never part of its bytes. Rows, lines and row
+ * accounting are exactly those of `batches`; `byteFieldString` gives the very string `batches` gives.
+ * The buffers belong to the batch: they are never overwritten, so a batch may be kept.
+ */
+export interface ByteBatch {
+  length: number;
+  /** 1-based physical line on which each row starts. */
+  lines: ArrayLike<number>;
+  /** The input bytes the fields point into. */
+  buf: Buffer;
+  /** Bytes of fields decoded out of their quoting; empty when no field needed it. */
+  side: Buffer;
+  /** True when every field of the batch is ASCII (then byte k of a field is its char code k). */
+  ascii: boolean;
+  starts: Int32Array[];
+  ends: Int32Array[];
+  decoded: Uint8Array[];
+  /** The requested string columns, values[c][i] exactly as `batches` gives them. */
+  values: string[][];
+}
+
 /** Row accounting of one read: every row is read and then either passed on or rejected. */
 export interface ReadSummary {
   file: string;
@@ -77,10 +102,19 @@ export interface TableReader {
   readonly engine: TableEngine;
   /** Size of the input file in bytes as stored; undefined for standard input. */
   readonly totalBytes: number | undefined;
+  /** Rows per batch of `batches` (every batch but the last is this full); `byteBatches` may cut
+   *  batches shorter, at the end of each chunk read. */
+  readonly batchSize: number;
   /** Index of a column; throws QuernError 'E_COLUMN' listing the columns and the nearest spelling. */
   columnIndex(name: string): number;
   /** Streams the named columns once, in batches. */
   batches(columns: readonly string[]): AsyncIterable<ColumnBatch>;
+  /**
+   * Streams the named columns once, as bytes (`byteColumns`) and as strings (`stringColumns`), in
+   * batches with the same rows, lines and accounting as `batches`. Only one of `batches` and
+   * `byteBatches` may be read per open table.
+   */
+  byteBatches(byteColumns: readonly string[], stringColumns?: readonly string[]): AsyncIterable<ByteBatch>;
   /** Row accounting; complete once `batches` has been read to the end. */
   summary(): ReadSummary;
   /** Releases the file when the caller stops before the end of `batches`. */

@@ -12,3 +12,6 @@ export { parseIsoDuration, addDurationToWall } from './duration.js';
 export { parseTimeText } from './text.js';
 export { epochUnitOfDigits } from './epoch.js';
 export { serialFractionMs } from './serial.js';
+export { fastIsoBytes, parseIsoBytes } from './iso-bytes.js';
+export type { TimeBytesParser } from './bytes-parser.js';
+export { makeTimeBytesParser } from './bytes-parser.js';

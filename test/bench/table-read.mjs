@@ -8,6 +8,7 @@ import { once } from 'node:events';
 import { tsImport } from 'tsx/esm/api';
 
 const { openTable } = await tsImport('../../src/table/index.ts', import.meta.url);
+const { makeTimeParser, makeTimeBytesParser, emptyParsedTime } = await tsImport('../../src/time/index.ts', import.meta.url);
 
 const rows = Number(process.argv[2] ?? 2_000_000);
 const refRows = Number(process.argv[3] ?? 300_000);
@@ -51,6 +52,41 @@ async function readTable(file, engine, columns) {
   return n;
 }
 
+async function readBytes(file, columns) {
+  const t = await openTable(file);
+  let n = 0;
+  for await (const b of t.byteBatches(columns)) n += b.length;
+  const s = t.summary();
+  if (s.rowsRead !== n || s.rowsRejected !== 0) throw new Error(`accounting mismatch ${JSON.stringify(s)}`);
+  return n;
+}
+
+/** Reads and parses the ts column: from strings (batches) or from bytes (byteBatches). */
+async function parseTimes(file, bytes) {
+  const t = await openTable(file);
+  const out = emptyParsedTime();
+  let n = 0;
+  let sum = 0;
+  if (bytes) {
+    const parse = makeTimeBytesParser('iso-date-time-offset');
+    for await (const b of t.byteBatches(['ts'])) {
+      const s = b.starts[0];
+      const e = b.ends[0];
+      for (let i = 0; i < b.length; i++) if (b.decoded[0][i] === 0 && parse(b.buf, s[i], e[i], out) === null) sum += out.ms;
+      n += b.length;
+    }
+  } else {
+    const parse = makeTimeParser('iso-date-time-offset');
+    for await (const b of t.batches(['ts'])) {
+      const v = b.values[0];
+      for (let i = 0; i < b.length; i++) if (parse(v[i], out) === null) sum += out.ms;
+      n += b.length;
+    }
+  }
+  if (!(sum > 0)) throw new Error('nothing parsed');
+  return n;
+}
+
 /** Median wall time and best CPU time (user + system) of 3 runs; CPU time is the fairer figure on a shared machine. */
 async function measure(label, file, fn) {
   const size = statSync(file).size;
@@ -78,6 +114,10 @@ console.log(`node ${process.version}; load average ${os.loadavg().map((l) => l.t
 await measure('newline count (chunked indexOf)', big, () => newlineCount(big));
 await measure('fast path, all 4 columns', big, () => readTable(big, 'fast', ['ts', 'site', 'age', 'amount']));
 await measure('fast path, ts only', big, () => readTable(big, 'fast', ['ts']));
+await measure('byte batches, all 4 columns', big, () => readBytes(big, ['ts', 'site', 'age', 'amount']));
+await measure('byte batches, ts only', big, () => readBytes(big, ['ts']));
+await measure('ts parsed from strings', big, () => parseTimes(big, false));
+await measure('ts parsed from bytes', big, () => parseTimes(big, true));
 await measure('reference (csv-parse), all 4 columns', small, () => readTable(small, 'reference', ['ts', 'site', 'age', 'amount']));
 await measure('fast path on the same small file', small, () => readTable(small, 'fast', ['ts', 'site', 'age', 'amount']));
 console.log(`peak RSS ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB (whole script)`);
