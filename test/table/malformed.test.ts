@@ -1,5 +1,5 @@
 // Malformed quoting, NUL bytes and other hostile shapes: every row is still accounted for.
-// Where the engines' recovery differs (text after a closing quote), each engine's behaviour is pinned.
+// Both engines recover alike: a broken record is rejected up to its line end and reading resumes there.
 import { afterAll, describe, expect, it } from 'vitest';
 import { expectAddsUp, readAll, tempDir } from './helpers.js';
 
@@ -9,18 +9,12 @@ afterAll(() => tmp.cleanup());
 describe('openTable(file) on malformed quoting', () => {
   const text = 'a,b\n1,"x"y\n2,ok\n3,4\n';
 
-  it('fast path: rejects text after a closing quote (RFC 4180 §2.5) and resumes on the next line', async () => {
-    const r = await readAll(tmp.file('after-fast.csv', text), { engine: 'fast' });
+  it.each(['fast', 'reference'] as const)('%s: rejects text after a closing quote (RFC 4180 §2.5) and resumes on the next line', async (engine) => {
+    const r = await readAll(tmp.file(`after-${engine}.csv`, text), { engine });
+    // RFC 4180 §2.5–2.7: line 2's record is malformed; lines 3 and 4 are whole records of their own.
     expect(r.rows).toEqual([[3, '2', 'ok'], [4, '3', '4']]);
     expect(r.summary.rejectedByReason).toEqual({ 'bad-quote': 1 });
     expect(r.summary.examples[0]).toMatchObject({ code: 'bad-quote', line: 2, value: '1,"x"y' });
-    expectAddsUp(r.summary);
-  });
-
-  it('reference path: csv-parse cannot resume there; the rows it swallows are counted as rejected, not lost', async () => {
-    const r = await readAll(tmp.file('after-ref.csv', text), { engine: 'reference' });
-    expect(r.summary.examples[0]).toMatchObject({ code: 'bad-quote', line: 2 });
-    expect(r.summary.rowsRejected).toBeGreaterThanOrEqual(1);
     expectAddsUp(r.summary);
   });
 
