@@ -7,7 +7,7 @@ export type { ErrorCode, Diagnostic } from './errors.js';
 // --- calendar ---
 export type { UnitName, ZoneName, FiscalStart, CalendarOptions, Period, PeriodParts, Calendar } from './calendar/index.js';
 export {
-  makeCalendar, UNIT_NAMES, FIXED_UNIT_MS, isUnitName, parseUnitName, parseWeekStart, parseFiscalStart,
+  makeCalendar, UNIT_NAMES, FIXED_UNIT_MS, isUnitName, parseUnitName, parseStep, parseWeekStart, parseFiscalStart,
   weekNumberOf, weekStartDay, weeksInWeekYear, formatYear, formatDate, formatWallDateTime, EXAMPLE_LABELS,
   MS_PER_DAY, daysFromCivil, civilFromDays, yearOfDays, isoWeekday, isLeapYear, daysInMonth,
   weekStartOnOrBefore, isoWeekYearStart, epiWeekYearStart, isoWeeksInYear, epiWeeksInYear,

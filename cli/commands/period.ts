@@ -1,6 +1,6 @@
 // `quern period`: calendar look-ups. Options → LookupOptions → lookupPeriod() → PeriodLookup → text or JSON.
 import { Command, Option } from 'commander';
-import { QuernError, lookupPeriod, parseFiscalStart, parseUnitName, parseWeekStart, renderPeriodText } from '../../src/index.js';
+import { QuernError, lookupPeriod, parseFiscalStart, parseUnitName, parseStep, parseWeekStart, renderPeriodText } from '../../src/index.js';
 import type { LookupOptions } from '../../src/index.js';
 import { useColor } from '../io.js';
 import type { CommandContext } from '../program.js';
@@ -66,12 +66,7 @@ export function registerPeriod(program: Command, ctx: CommandContext): void {
 function lookupOptions(f: PeriodFlags): LookupOptions {
   const o: LookupOptions = {};
   if (f.unit !== undefined) o.unit = parseUnitName(f.unit);
-  if (f.step !== undefined) {
-    if (!/^\d+$/.test(f.step.trim()) || Number(f.step) < 1) {
-      throw new QuernError('E_UNIT', `bad step ${JSON.stringify(f.step)}: a step is a whole number of units, 1 or more`, 'for example --step 15 --unit minute');
-    }
-    o.step = Number(f.step);
-  }
+  if (f.step !== undefined) o.step = parseStep(f.step);
   if (f.zone !== undefined) o.zone = f.zone;
   if (f.weekStart !== undefined) {
     o.weekStart = parseWeekStart(f.weekStart);

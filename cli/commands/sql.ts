@@ -4,7 +4,7 @@ import { readFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { Command, Option } from 'commander';
 import {
-  QuernError, bucketCaseSql, bucketQuerySql, commentBlock, lookupPeriod, parseDialect, parseFiscalStart, parseUnitName,
+  QuernError, bucketCaseSql, bucketQuerySql, commentBlock, lookupPeriod, parseDialect, parseFiscalStart, parseUnitName, parseStep,
   parseWeekStart, periodSql, rebinQuerySql,
 } from '../../src/index.js';
 import type { ColumnRef, DialectName, RebinQueryOptions } from '../../src/index.js';
@@ -90,12 +90,7 @@ function instantOf(text: string, zone: string | undefined): number {
 function rebinOptions(f: SqlFlags, dialect: DialectName): Omit<RebinQueryOptions, 'table'> {
   if (f.unit === undefined) throw new QuernError('E_USAGE', 'no --unit given', 'use --unit epi-week, month, fiscal-quarter, … (or --spec FILE for a bucket scheme)');
   const o: Omit<RebinQueryOptions, 'table'> = { unit: parseUnitName(f.unit), dialect };
-  if (f.step !== undefined) {
-    if (!/^\d+$/.test(f.step.trim()) || Number(f.step) < 1) {
-      throw new QuernError('E_UNIT', `bad step ${JSON.stringify(f.step)}: a step is a whole number of units, 1 or more`, 'for example --step 15 --unit minute');
-    }
-    o.step = Number(f.step);
-  }
+  if (f.step !== undefined) o.step = parseStep(f.step);
   if (f.zone !== undefined) o.zone = f.zone;
   if (f.weekStart !== undefined) {
     if (o.unit !== 'week') throw new QuernError('E_UNIT', `--week-start does not apply to ${o.unit}`, 'ISO weeks start on Monday and epidemiological weeks on Sunday; use --unit week for another start day');

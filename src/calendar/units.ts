@@ -48,6 +48,14 @@ export function parseUnitName(text: string): UnitName {
 const WEEKDAYS = ['monday', 'tuesday', 'wednesday', 'thursday', 'friday', 'saturday', 'sunday'];
 
 /** Reads a week start: 'monday'/'mon'/'mo'/'1' … 'sunday'/'sun'/'7' (also '0' for Sunday); ISO weekday number. */
+/** Reads a step typed on a command line (`--step 15`): a whole number of units, 1 or more. */
+export function parseStep(text: string): number {
+  if (!/^\d+$/.test(text.trim()) || Number(text) < 1) {
+    throw new QuernError('E_UNIT', `bad step ${JSON.stringify(text)}: a step is a whole number of units, 1 or more`, 'for example --step 15 --unit minute');
+  }
+  return Number(text);
+}
+
 export function parseWeekStart(text: string): number {
   const key = text.trim().toLowerCase();
   if (/^[0-7]$/.test(key)) return key === '0' ? 7 : Number(key);
