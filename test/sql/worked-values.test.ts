@@ -1,7 +1,7 @@
 // periodSql in DuckDB and PostgreSQL against published values: the ISO and epidemiological weeks 53 and the
 // local days that broke other tools (a skipped midnight, a repeated midnight, southern-hemisphere daylight
 // saving, a +05:45 zone), and fiscal years named as their statutes name them. Sources beside each row
-// (from /work/shared/REFERENCES.md, as cited there). Expected values are written out, never computed by quern.
+// (from the shared REFERENCES.md, as cited there). Expected values are written out, never computed by quern.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CalendarOptions } from '../../src/calendar/index.js';
 import { periodSql } from '../../src/sql/period.js';
