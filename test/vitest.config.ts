@@ -9,6 +9,7 @@ export default defineConfig({
     testTimeout: 60_000,
     hookTimeout: 60_000,
     pool: 'forks',
+    setupFiles: ['test/setup.ts'],
     // A zone with daylight saving by default, so nothing depends on the machine's zone; .ci/run repeats
     // the time-sensitive folders with QUERN_TEST_TZ=UTC.
     env: { TZ: process.env.QUERN_TEST_TZ ?? 'America/New_York' },

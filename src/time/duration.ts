@@ -98,7 +98,7 @@ export function scanDuration(s: string, start: number, end: number, d: IsoDurati
     if (i >= end) return 'invalid-duration: a number must be followed by a designator (Y, M, W, D, H, M or S)';
     const des = s.charCodeAt(i) & ~32;
     const at = designatorIndex(inTime, des);
-    if (at < 0) return `invalid-duration: ${String.fromCharCode(s.charCodeAt(i))} is not a ${inTime ? 'time' : 'date'} designator here`;
+    if (at < 0) return `invalid-duration: ${JSON.stringify(String.fromCharCode(s.charCodeAt(i)))} is not a ${inTime ? 'time' : 'date'} designator here`;
     if (at <= order) return 'invalid-duration: components must appear once each, largest first';
     if (q > 0 && !inTime) return 'invalid-duration: years, months, weeks and days take whole numbers';
     order = at;

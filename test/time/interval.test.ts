@@ -2,7 +2,7 @@
 // ISO 8601:2004 §4.4.3–§4.4.5 (from memory); Temporal.Duration.from is the oracle for duration fields.
 import { describe, it, expect } from 'vitest';
 import { Temporal } from 'temporal-polyfill';
-import { parseIsoDuration, isQuernError } from '../../src/index.js';
+import { parseIsoDuration, isQuernError, makeTimeParser, emptyParsedTime } from '../../src/index.js';
 import { read, code } from './read.js';
 
 describe('makeTimeParser(iso-interval)', () => {
@@ -75,5 +75,15 @@ describe('parseIsoDuration', () => {
     }
     expect(isQuernError(caught, 'E_VALUE')).toBe(true);
     expect((caught as Error).message).toContain(JSON.stringify(text));
+  });
+});
+
+describe('makeTimeParser(iso-interval) on a stray character in a duration', () => {
+  // Found by the fuzz property in parser.test.ts (seed -1258901384): the reason must start with its code and
+  // a visible word, so a blank designator is quoted. Expected shape: this file's own reason-code rule.
+  it('quotes a blank designator in the reason for "2024-03-10/P1 W"', () => {
+    const out = emptyParsedTime();
+    const reason = makeTimeParser('iso-interval')('2024-03-10/P1 W', out);
+    expect(reason).toMatch(/^invalid-duration: " " is not a date designator here$/);
   });
 });
