@@ -1,6 +1,6 @@
 // Plain data of `gaps`: its options and its result, printed by `--json` as they are.
 import type { CalendarOptions, UnitName } from '../calendar/types.js';
-import type { Diagnostic } from '../errors.js';
+import type { RowAccounting } from '../rebin/types.js';
 
 /** What `findGaps` is asked to do. */
 export interface GapsOptions {
@@ -89,16 +89,8 @@ export interface GapSeries {
   gaps?: InstantGapReport[];
 }
 
-/** Row accounting: rowsRead = rowsUsed + rowsEmpty + rowsRejected + rowsOutside. */
-export interface GapsSummary {
-  file: string;
-  rowsRead: number;
-  rowsUsed: number;
-  rowsEmpty: number;
-  rowsRejected: number;
-  rejectedByReason: Record<string, number>;
-  rowsOutside: number;
-  examples: Diagnostic[];
+/** The summary of a gaps run: its row accounting (as rebin's), and what was found. */
+export interface GapsSummary extends RowAccounting {
   localTime: { nonexistent: number; repeated: number };
   timeFormat: { id: string; label: string; kind: 'instant' | 'local' | 'period' };
 }

@@ -65,8 +65,8 @@ export interface MeasureSummary {
   rejectedByReason: Record<string, number>;
 }
 
-/** Row accounting: rowsRead = rowsUsed + rowsEmpty + rowsRejected + rowsOutside. */
-export interface RebinSummary {
+/** Row accounting shared by rebin and gaps: rowsRead = rowsUsed + rowsEmpty + rowsRejected + rowsOutside. */
+export interface RowAccounting {
   file: string;
   rowsRead: number;
   /** Rows that went into a period. */
@@ -80,6 +80,10 @@ export interface RebinSummary {
   rowsOutside: number;
   /** The first few rejected rows and values. */
   examples: Diagnostic[];
+}
+
+/** The summary of a rebin: its row accounting, and what was built. */
+export interface RebinSummary extends RowAccounting {
   /** Periods in the output (filled ones included). */
   periods: number;
   groups: number;

@@ -26,17 +26,7 @@ export async function rebinText(text: string, options: RebinOptions): Promise<Re
   }
 }
 
-/** mulberry32: a small seeded generator (public domain), so generated tests are reproducible. */
-export function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seeded } from '../helpers/seeded.js';
 
 /** Property-test runs: QUERN_FUZZ_RUNS when set, else a CI-friendly default. */
 export const FUZZ_RUNS = Number(process.env.QUERN_FUZZ_RUNS ?? 60);

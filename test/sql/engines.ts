@@ -75,14 +75,4 @@ export async function runExpressions(e: Engines, which: 'duck' | 'pg', sql: stri
   return res.rows.map((r) => ({ ts: (r[0] as Date).getTime(), period: String(r[1]), start: (r[2] as Date).getTime(), end: (r[3] as Date).getTime() }));
 }
 
-/** A seeded generator (mulberry32) for reproducible events. */
-export function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seeded } from '../helpers/seeded.js';

@@ -1,0 +1,14 @@
+// A seeded generator (mulberry32, public domain) shared by the tests that generate data, so every
+// generated case is the same on every run.
+
+/** Returns a function giving uniform numbers in [0, 1) from `seed`. */
+export function seeded(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
