@@ -121,6 +121,53 @@ function stdoutTarget(out: StdoutLike): OutputTarget {
   };
 }
 
+/** A target that is not a regular file: written directly, as it cannot be replaced atomically. */
+async function deviceTarget(shown: string, target: string): Promise<OutputTarget> {
+  let handle: FileHandle;
+  try {
+    handle = await open(target, 'w');
+  } catch (e) {
+    throw outputError(shown, e);
+  }
+  let pending = '';
+  let open_ = true;
+  async function flush(): Promise<void> {
+    if (pending === '') return;
+    const text = pending;
+    pending = '';
+    try {
+      await handle.write(text);
+    } catch (e) {
+      await out.abort();
+      throw outputError(shown, e);
+    }
+  }
+  const out: OutputTarget = {
+    path: shown,
+    closed: false,
+    async write(text) {
+      if (!open_) throw new QuernError('E_INTERNAL', `${shown}: written after it was closed`);
+      pending += text;
+      if (pending.length >= FLUSH_AT) await flush();
+    },
+    async commit() {
+      if (!open_) return;
+      await flush();
+      open_ = false;
+      await handle.close().catch((e: unknown) => {
+        throw outputError(shown, e);
+      });
+    },
+    async abort() {
+      if (!open_) return;
+      open_ = false;
+      pending = '';
+      await handle.close().catch(() => undefined);
+    },
+  };
+  return out;
+}
+
 function outputError(path: string, e: unknown): QuernError {
   if (e instanceof QuernError) return e;
   const code = (e as NodeJS.ErrnoException).code;
@@ -138,6 +185,9 @@ async function fileTarget(shown: string, target: string): Promise<OutputTarget> 
   try {
     const st = await stat(target);
     if (st.isDirectory()) throw new QuernError('E_OUTPUT', `${shown}: is a folder, not a file`);
+    // A device, pipe or socket (/dev/null, a named pipe) is written in place: renaming a file over it
+    // would replace the device.
+    if (!st.isFile()) return deviceTarget(shown, target);
     mode = st.mode & 0o7777;
   } catch (e) {
     if ((e as NodeJS.ErrnoException).code !== 'ENOENT') throw outputError(shown, e);
