@@ -1,0 +1,116 @@
+// Runs a range task over the byte ranges of a file on several threads, the main thread included, and
+// hands the outcomes back in file order with every boundary verified: a range that did not start where
+// the previous one stopped (a line feed inside a quoted field) is read again from that stop.
+import { Worker } from 'node:worker_threads';
+import { QuernError, type ErrorCode } from '../errors.js';
+import type { FromWorker, ToWorker, WorkerSetup } from './messages.js';
+import { isSourceModule, siblingModule } from './module-url.js';
+import type { ByteRange, RangeOutcome, RangeRun, RangeTask } from './types.js';
+
+/** Runs `run.exportName` of `run.moduleUrl` over every range; rejects with the first error a range throws. */
+export async function runRanges<O, P>(run: RangeRun<O>): Promise<Array<RangeOutcome<P>>> {
+  const task = await loadTask<O, P>(run.moduleUrl, run.exportName);
+  const n = run.ranges.length;
+  const outcomes = new Array<RangeOutcome<P>>(n);
+  const progress = new Float64Array(n);
+  const onBytes = (index: number, bytes: number): void => {
+    progress[index] = bytes;
+    if (run.onProgress !== undefined) {
+      let total = 0;
+      for (let i = 0; i < n; i++) total += progress[i]!;
+      run.onProgress(total);
+    }
+  };
+  let next = 0;
+  let failed = false;
+  const take = (): ByteRange | undefined => (failed || next >= n ? undefined : run.ranges[next++]);
+  const inMain = async (range: ByteRange): Promise<RangeOutcome<P>> =>
+    task(run.file, run.options, range, { onProgress: (b) => onBytes(range.index, b) });
+
+  const mainLane = async (): Promise<void> => {
+    for (let r = take(); r !== undefined; r = take()) outcomes[r.index] = await inMain(r);
+  };
+  const main = run.mainTakesPart !== false;
+  const workerCount = main ? Math.max(0, Math.min(run.threads - 1, n - 1)) : Math.max(1, Math.min(run.threads, n));
+  const workers: Worker[] = [];
+  const setup: WorkerSetup = { moduleUrl: run.moduleUrl, exportName: run.exportName, file: run.file, options: run.options };
+  const lanes: Array<Promise<void>> = [];
+  for (let w = 0; w < workerCount; w++) {
+    const worker = spawnWorker(setup);
+    workers.push(worker);
+    lanes.push(workerLane(worker, take, (o) => (outcomes[o.range.index] = o as RangeOutcome<P>), onBytes));
+  }
+  if (main) lanes.unshift(mainLane());
+  try {
+    const settled = await Promise.allSettled(lanes.map((l) => l.catch((e: unknown) => { failed = true; throw e; })));
+    const bad = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
+    if (bad !== undefined) throw bad.reason;
+  } finally {
+    for (const w of workers) void w.terminate();
+  }
+  // Mend boundaries in file order: each range must begin where the one before it stopped.
+  for (let k = 1; k < n; k++) {
+    const prevStop = outcomes[k - 1]!.stop;
+    const o = outcomes[k]!;
+    if (o.range.start !== prevStop) outcomes[k] = await inMain({ index: k, start: prevStop, end: Math.max(prevStop, o.range.end) });
+  }
+  return outcomes;
+}
+
+async function loadTask<O, P>(moduleUrl: string, exportName: string): Promise<RangeTask<O, P>> {
+  const mod = (await import(moduleUrl)) as Record<string, unknown>;
+  const task = mod[exportName];
+  if (typeof task !== 'function') throw new Error(`${moduleUrl} has no range task ${exportName}`);
+  return task as RangeTask<O, P>;
+}
+
+/** A worker thread running `worker.ts`; from the TypeScript sources (tests) through tsx's loader. */
+function spawnWorker(setup: WorkerSetup): Worker {
+  const here = import.meta.url;
+  const url = siblingModule(here, 'worker');
+  if (!isSourceModule(here)) return new Worker(new URL(url), { workerData: setup });
+  const boot = `import('tsx/esm/api').then((a) => { a.register(); return import(${JSON.stringify(url)}); })`;
+  return new Worker(boot, { eval: true, workerData: setup });
+}
+
+/** Feeds ranges to one worker until none are left; rejects on the worker's first error. */
+function workerLane(
+  worker: Worker,
+  take: () => ByteRange | undefined,
+  done: (o: RangeOutcome<unknown>) => void,
+  onBytes: (index: number, bytes: number) => void,
+): Promise<void> {
+  return new Promise((resolve, reject) => {
+    let finished = false;
+    const end = (e?: unknown): void => {
+      if (finished) return;
+      finished = true;
+      worker.postMessage({ type: 'stop' } satisfies ToWorker);
+      if (e === undefined) resolve();
+      else reject(e);
+    };
+    const feed = (): void => {
+      const r = take();
+      if (r === undefined) end();
+      else worker.postMessage({ type: 'range', range: r } satisfies ToWorker);
+    };
+    worker.on('message', (m: FromWorker) => {
+      if (m.type === 'ready') feed();
+      else if (m.type === 'progress') onBytes(m.index, m.bytes);
+      else if (m.type === 'done') {
+        done(m.outcome);
+        feed();
+      } else end(rebuildError(m.error));
+    });
+    worker.on('error', (e) => end(e));
+    worker.on('exit', (code) => end(finished ? undefined : new Error(`range worker stopped early (exit ${code})`)));
+  });
+}
+
+function rebuildError(e: Extract<FromWorker, { type: 'error' }>['error']): Error {
+  if (e.name === 'QuernError') return new QuernError(e.code as ErrorCode, e.message, e.hint);
+  const err = new Error(e.message);
+  err.name = e.name;
+  if (e.stack !== undefined) err.stack = e.stack;
+  return err;
+}
