@@ -1,6 +1,6 @@
 #!/usr/bin/env node
 // The only file that touches `process`: binds the CLI to the real streams and exits with run()'s status.
-import { abortOpenOutputsSync } from '../src/index.js';
+import { abortOpenOutputsSync } from '../src/table/output.js';
 import { run } from './program.js';
 
 // Ctrl-C or a kill: remove any half-written temporary output (--out, --report) and exit as signals do.

@@ -1,9 +1,10 @@
 // The commander program, testable in-process: run(argv, io) resolves to an exit status.
 import { Command, CommanderError } from 'commander';
-import { isQuernError, terminalSafe } from '../src/index.js';
+import { isQuernError } from '../src/errors.js';
+import { terminalSafe } from '../src/report/terminal.js';
 import type { CliIO } from './io.js';
 import { EXIT_INTERNAL, EXIT_OK, EXIT_USAGE, exitStatusFor } from './exit.js';
-import { commands } from './commands/index.js';
+import { loadCommands, type RegisterCommand } from './commands/index.js';
 
 /** State shared by the actions of one run. */
 export interface CommandContext {
@@ -17,8 +18,8 @@ export const CAUTION =
   "reporting authority's calendar. Small counts may need suppression under local privacy rules. quern does " +
   "not replace a qualified analyst's judgement.";
 
-/** Builds the program; exported for tests that inspect help text. */
-export function buildProgram(ctx: CommandContext): Command {
+/** Builds the program with the given commands (see `loadCommands`); exported for tests that inspect help text. */
+export function buildProgram(ctx: CommandContext, commands: readonly RegisterCommand[]): Command {
   const program = new Command('quern');
   program
     .description('Get a table\'s time and number columns right before anyone charts them.')
@@ -45,7 +46,13 @@ export function buildProgram(ctx: CommandContext): Command {
 export async function run(argv: readonly string[], io: CliIO): Promise<number> {
   let status = EXIT_OK;
   const ctx: CommandContext = { io, setExit: (s) => { status = Math.max(status, s); } };
-  const program = buildProgram(ctx);
+  let program: Command;
+  try {
+    program = buildProgram(ctx, await loadCommands(argv));
+  } catch (e) {
+    io.stderr.write(`quern: internal error: ${terminalSafe(e instanceof Error ? e.message : String(e))}\n`);
+    return EXIT_INTERNAL;
+  }
   try {
     await program.parseAsync([...argv], { from: 'user' });
     return status;
