@@ -10,7 +10,7 @@
 // 2100, where every zone follows its annual rule (annual-rule.ts), J is summed from that rule per
 // 400-year cycle instead of from the transition table of every year.
 import type { Zone, ZoneChunk } from '../time/zone.js';
-import { ZONE_CHUNK_MS } from '../time/zone.js';
+import { EARLY_CHUNK, ZONE_CHUNK_MS } from '../time/zone.js';
 import { CYCLE_MS, RULE_CHUNK, RULE_START_MS, ruleCycle, type RuleTransition } from './annual-rule.js';
 
 function floorDiv(a: number, b: number): number {
@@ -147,8 +147,15 @@ export class SubdayGrid {
       this.keys.set(idx, ck);
       return ck;
     }
+    // No transitions before EARLY_CHUNK: J there is J at EARLY_CHUNK, and a walk from an origin in that
+    // far past may start at EARLY_CHUNK instead.
+    if (idx < EARLY_CHUNK) {
+      const ck = this.buildKeys(idx, this.chunkKeys(EARLY_CHUNK * ZONE_CHUNK_MS).j0);
+      this.keys.set(idx, ck);
+      return ck;
+    }
     // Walk from the nearest known block towards `idx`, carrying J across block boundaries.
-    const o = this.originChunk;
+    const o = Math.max(this.originChunk, EARLY_CHUNK);
     const dir = idx >= o ? -1 : 1;
     let i = idx;
     while (i !== o && !this.keys.has(i)) i += dir;

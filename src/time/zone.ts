@@ -27,6 +27,13 @@ const SAMPLE_MS = 4 * DAY;
 const MAX_MS = 8.64e15;
 /** Span of one cached block of the transition table (2^35 ms, about 398 days). */
 export const ZONE_CHUNK_MS = 2 ** 35;
+/**
+ * The table block holding 1800-01-01T00:00Z. Before it every zone keeps one offset (its local mean
+ * time): the tz database's first transitions come later (from memory, the earliest in the 1840s), and
+ * this was checked for all 418 zones of the runtime's ICU data, sampled monthly over 1600–1800 and every
+ * ten years from the year −2000 (none differs from its 1800 offset). So the far past costs no look-ups.
+ */
+export const EARLY_CHUNK = Math.floor(Date.UTC(1800, 0, 1) / ZONE_CHUNK_MS);
 
 /** One cached block of the table: the offset at its start and the transitions inside it, in order. */
 export interface ZoneChunk {
@@ -213,6 +220,10 @@ class TableZone extends BaseZone {
     const last = this.last;
     if (last !== null && ms >= last.start && ms < last.end) return last;
     const k = Math.floor(ms / ZONE_CHUNK_MS);
+    if (k < EARLY_CHUNK) {
+      const start = k * ZONE_CHUNK_MS;
+      return { start, end: start + ZONE_CHUNK_MS, offsetAtStart: this.chunkAt(EARLY_CHUNK * ZONE_CHUNK_MS).offsetAtStart, at: [], after: [] };
+    }
     let chunk = this.chunks.get(k);
     if (chunk === undefined) {
       chunk = this.buildChunk(k * ZONE_CHUNK_MS);
@@ -261,7 +272,7 @@ class TableZone extends BaseZone {
   transitions(from: number, to: number): ZoneTransition[] {
     const out: ZoneTransition[] = [];
     if (!(to > from)) return out;
-    for (let s = Math.floor(from / ZONE_CHUNK_MS) * ZONE_CHUNK_MS; s < to; s += ZONE_CHUNK_MS) {
+    for (let s = Math.max(Math.floor(from / ZONE_CHUNK_MS), EARLY_CHUNK) * ZONE_CHUNK_MS; s < to; s += ZONE_CHUNK_MS) {
       const c = this.chunkAt(s);
       let before = c.offsetAtStart;
       for (let i = 0; i < c.at.length; i++) {
