@@ -44,12 +44,15 @@ function reasons(by: Record<string, number>): string {
   return parts.length === 0 ? '' : ` (${parts.join(', ')})`;
 }
 
+/** `n` and the word, singular for one ("1 row", "2 rows"). */
+const counted = (n: number, one: string, many = `${one}s`): string => `${formatNumber(n)} ${n === 1 ? one : many}`;
+
 /** The human summary: row accounting that adds up, periods, groups, values, local times, notes. */
 export function rebinSummaryText(result: RebinResult): string {
   const s: RebinSummary = result.summary;
   const unit = result.step === 1 ? result.unit : `${result.step}-${result.unit}`;
   const lines: string[] = [];
-  lines.push(`${formatNumber(s.rowsRead)} rows read from ${terminalSafe(s.file)}: ${formatNumber(s.rowsUsed)} used, ` +
+  lines.push(`${counted(s.rowsRead, 'row')} read from ${terminalSafe(s.file)}: ${formatNumber(s.rowsUsed)} used, ` +
     `${formatNumber(s.rowsEmpty)} with an empty time, ${formatNumber(s.rowsRejected)} rejected${reasons(s.rejectedByReason)}` +
     (s.rowsOutside > 0 ? `, ${formatNumber(s.rowsOutside)} outside --from/--until` : ''));
   const sp = s.sourcePeriods;
@@ -58,11 +61,11 @@ export function rebinSummaryText(result: RebinResult): string {
     : `; ${formatNumber(sp.rows)} ${sp.unit ?? 'source'} values, ${formatNumber(sp.straddling)} straddling ${article(unit)} ${unit} boundary` +
       (sp.policy ? ` (--assign ${sp.policy})` : '');
   lines.push(`time values: ${s.timeFormat.label}${source}`);
-  const groups = result.groupColumns.length > 0 ? ` × ${formatNumber(s.groups)} groups of ${result.groupColumns.join(', ')}` : '';
-  lines.push(`${formatNumber(s.periods)} ${unit} periods in ${result.zone}${groups} → ${formatNumber(result.rows.length)} rows` +
+  const groups = result.groupColumns.length > 0 ? ` × ${counted(s.groups, 'group')} of ${result.groupColumns.join(', ')}` : '';
+  lines.push(`${counted(s.periods, `${unit} period`)} in ${result.zone}${groups} → ${counted(result.rows.length, 'row')}` +
     (s.filledRows > 0 ? ` (${formatNumber(s.filledRows)} filled: count 0, other aggregates empty)` : ''));
   for (const m of s.measures) {
-    lines.push(`${terminalSafe(m.column)}: ${formatNumber(m.valid)} values, ${formatNumber(m.empty)} empty, ${formatNumber(m.rejected)} rejected${reasons(m.rejectedByReason)}`);
+    lines.push(`${terminalSafe(m.column)}: ${counted(m.valid, 'value')}, ${formatNumber(m.empty)} empty, ${formatNumber(m.rejected)} rejected${reasons(m.rejectedByReason)}`);
   }
   if (s.localTime.nonexistent + s.localTime.repeated > 0) {
     lines.push(`local times: ${formatNumber(s.localTime.nonexistent)} skipped by a clock change, ${formatNumber(s.localTime.repeated)} repeated (${s.localTime.rule})`);

@@ -137,7 +137,7 @@ describe('quern rebin errors and exit statuses', () => {
   it('the summary on the messy demo file adds up: used + empty + rejected = read', async () => {
     const r = await runCli(['rebin', 'fixtures/messy-visits.csv', '--time', 'visit_time', '--unit', 'day', '--zone', CHI, '--agg', 'mean:patient_age']);
     expect(r.status).toBe(0);
-    const m = /([\d,]+) rows read from .*: ([\d,]+) used, ([\d,]+) with an empty time, ([\d,]+) rejected/.exec(r.stderr)!;
+    const m = /([\d,]+) rows? read from .*: ([\d,]+) used, ([\d,]+) with an empty time, ([\d,]+) rejected/.exec(r.stderr)!;
     const [read, used, empty, rejected] = m.slice(1).map((x) => Number(x.replaceAll(',', '')));
     expect(used! + empty! + rejected!).toBe(read);
     expect(r.stderr).toContain('patient_age:');
