@@ -20,6 +20,10 @@ export class RowAccount {
   rowsRejected = 0;
   blankLines = 0;
   lines = 0;
+  /** Line breaks read after the header (set by the body reader at its end). */
+  breaks = 0;
+  /** Offset just after the last record read; -1 until the body reader sets it. */
+  stop = -1;
   complete = false;
   readonly byReason: Record<string, number> = {};
   readonly examples: Diagnostic[] = [];
@@ -67,6 +71,8 @@ export class RowAccount {
     format: TableFormat;
     delimiter: string;
     engine: TableEngine;
+    /** Where the next record starts when the body reader has not said (its reading so far). */
+    stop: number;
   }): ReadSummary {
     return {
       file: this.file,
@@ -84,6 +90,8 @@ export class RowAccount {
       delimiter: extra.delimiter,
       engine: extra.engine,
       complete: this.complete,
+      stop: this.stop >= 0 ? this.stop : extra.stop,
+      breaks: this.breaks,
     };
   }
 }

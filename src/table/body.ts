@@ -19,6 +19,10 @@ export interface BodyContext {
   startLine: number;
   /** Whether the input so far (the header) ends with a line break. */
   headerEndsWithBreak: boolean;
+  /** Offset in the decoded input of the source's next byte (just after the header, or a range's start). */
+  offset: number;
+  /** Records are read while they start before this offset (a byte range's end); Infinity for all. */
+  end: number;
 }
 
 const PREVIEW_BYTES = 120;

@@ -127,6 +127,8 @@ export async function* ndjsonBatches(ctx: {
     if (final) break;
   }
   account.lines = line - (endsWithBreak ? 1 : 0);
+  // Every line read was counted in `line`; the last one holds no break when the input ends without one.
+  account.breaks = line - ctx.startLine - (endsWithBreak || line === ctx.startLine ? 0 : 1);
 
   function readObject(text: string, at: number): void {
     let obj: unknown;

@@ -195,6 +195,7 @@ export async function* referenceCsvBatches(ctx: BodyContext): AsyncGenerator<Col
     return p;
   };
   let parser = start(0);
+  let restarted = false; // whether the last skip started a parser after the broken record
   /** Rejects the record stopped at a bad quote once its line end is known, then restarts after it. */
   const skip = (ended: boolean): boolean => {
     const { end, resume } = window.lineEnd(skipFrom, ended);
@@ -207,7 +208,9 @@ export async function* referenceCsvBatches(ctx: BodyContext): AsyncGenerator<Col
     skipFrom = -1;
     lines.lineAt(end);
     window.release(end);
-    if (!ended) parser = start(end);
+    // Bytes after the broken record are parsed afresh, also when the input has already ended.
+    restarted = !ended || end < window.end;
+    if (restarted) parser = start(end);
     return true;
   };
   /** Hands the bytes not yet parsed to the parser, skipping and restarting at each bad quote. */
@@ -239,8 +242,15 @@ export async function* referenceCsvBatches(ctx: BodyContext): AsyncGenerator<Col
     await drain();
     for (const b of builder.take()) yield b;
   }
-  if (skipFrom < 0) {
-    // The last record, without a line end, is parsed only now, and may hold a bad quote too.
+  // At the end of the input: the last record, without a line end, is parsed only now and may hold a bad
+  // quote too; each broken record is skipped to its line end and the bytes after it parsed afresh.
+  for (;;) {
+    if (skipFrom >= 0) {
+      skip(true);
+      if (!restarted) break;
+      await drain();
+      continue;
+    }
     const done = finished(parser);
     done.catch(() => undefined);
     parser.end();
@@ -249,11 +259,15 @@ export async function* referenceCsvBatches(ctx: BodyContext): AsyncGenerator<Col
     } catch (e) {
       if (e !== STOP) throw e;
       skipFrom = errAt;
+      errAt = -1;
+      continue;
     }
+    break;
   }
-  if (skipFrom >= 0) skip(true);
   for (const b of builder.take(true)) yield b;
-  account.lines = lines.lineAt(window.end) - (endsWithBreak ? 1 : 0);
+  const lastLine = lines.lineAt(window.end);
+  account.lines = lastLine - (endsWithBreak ? 1 : 0);
+  account.breaks = lastLine - ctx.startLine;
 }
 
 /**

@@ -26,6 +26,8 @@ export interface SourceOptions {
   cwd?: string;
   chunkSize?: number;
   onProgress?: (bytesRead: number, totalBytes: number | undefined) => void;
+  /** Offset of a plain file at which to begin reading (default 0); progress counts from there. */
+  position?: number;
 }
 
 const GZIP_MAGIC_0 = 0x1f; // RFC 1952 §2.3.1: ID1 = 31, ID2 = 139
@@ -97,7 +99,7 @@ async function fileStream(file: string, options: SourceOptions): Promise<RawStre
   }
   try {
     const handle = await open(path, 'r');
-    const stream = handle.createReadStream({ highWaterMark: options.chunkSize ?? 1 << 20 });
+    const stream = handle.createReadStream({ highWaterMark: options.chunkSize ?? 1 << 20, start: options.position ?? 0 });
     return { stream, totalBytes: size };
   } catch (e) {
     throw fileError(file, e);

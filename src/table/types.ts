@@ -26,6 +26,15 @@ export interface TableOptions {
   cwd?: string;
   /** Bytes per read from the file; default 1 MiB. */
   chunkSize?: number;
+  /**
+   * Reads only the records that start in [start, end) of a plain CSV/TSV file (fast engine; QuernError
+   * 'E_USAGE' for standard input, gzip, NDJSON or the reference engine). The header is still read from
+   * the file's start. `start` 0 is the body right after the header, with the file's line numbers; a
+   * `start` > 0 must be a record start just after a line break, at or past `bodyStart`, and line
+   * numbers then count from it (its line is line 1). A record starting before `end` is read to its end.
+   * `summary().stop` is where the next record starts; `summary().breaks` the line breaks read.
+   */
+  byteRange?: { start: number; end: number };
 }
 
 /** A batch of rows restricted to the requested columns. values[c][i] is row i of requested column c. */
@@ -91,6 +100,12 @@ export interface ReadSummary {
   engine: TableEngine;
   /** True once `batches` has been read to the end. */
   complete: boolean;
+  /** Offset in the (decoded) input just after the last record read: the next record's start. The file
+   *  size after a whole read of a plain file; with `byteRange`, where the next range must begin. */
+  stop: number;
+  /** Line breaks read after the header (blank lines and breaks inside quoted fields included); with
+   *  `byteRange`, those of the range's records. */
+  breaks: number;
 }
 
 /** An open table: its header is known; its rows are read once through `batches`. */
@@ -102,6 +117,12 @@ export interface TableReader {
   readonly engine: TableEngine;
   /** Size of the input file in bytes as stored; undefined for standard input. */
   readonly totalBytes: number | undefined;
+  /** Offset in the (decoded) input just after the header's line end (a UTF-8 BOM counted): where the
+   *  body begins, and the least `byteRange.start` > 0 may be. */
+  readonly bodyStart: number;
+  /** Physical lines up to the end of the header (blank lines before it included): the line shift of a
+   *  range read starting at `bodyStart`. */
+  readonly headerLines: number;
   /** Rows per batch of `batches` (every batch but the last is this full); `byteBatches` may cut
    *  batches shorter, at the end of each chunk read. */
   readonly batchSize: number;

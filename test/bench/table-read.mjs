@@ -14,17 +14,21 @@ const rows = Number(process.argv[2] ?? 2_000_000);
 const refRows = Number(process.argv[3] ?? 300_000);
 const dir = mkdtempSync(join(tmpdir(), 'quern-bench-'));
 
-/** Writes `n` rows of ts,site,age,amount with ISO 8601 UTC timestamps (seeded, deterministic). */
-async function generate(file, n) {
+/**
+ * Writes `n` rows of ts,site,age,amount with ISO 8601 UTC timestamps (seeded, deterministic), with the
+ * delimiter `d`, every field quoted when `quoted` (RFC 4180 §2.5).
+ */
+async function generate(file, n, d = ',', quoted = false) {
   const out = createWriteStream(file);
   let seed = 42;
   const rnd = () => ((seed = (seed * 1103515245 + 12345) >>> 0) / 2 ** 32);
   const sites = ['Alderbrook', 'Fennick Cross', 'Marrow Hill', 'Quillon Bay', 'Stenby Moor'];
   let t = Date.UTC(2023, 0, 1);
-  let buf = 'ts,site,age,amount\n';
+  const q = quoted ? (v) => `"${v}"` : (v) => v;
+  let buf = ['ts', 'site', 'age', 'amount'].join(d) + '\n';
   for (let i = 0; i < n; i++) {
     t += Math.floor(rnd() * 6000);
-    buf += `${new Date(t).toISOString().slice(0, 19)}Z,${sites[i % 5]},${Math.floor(rnd() * 100)},${(rnd() * 500).toFixed(2)}\n`;
+    buf += [`${new Date(t).toISOString().slice(0, 19)}Z`, sites[i % 5], String(Math.floor(rnd() * 100)), (rnd() * 500).toFixed(2)].map(q).join(d) + '\n';
     if (buf.length > 1 << 16) {
       if (!out.write(buf)) await once(out, 'drain');
       buf = '';
@@ -108,14 +112,20 @@ async function measure(label, file, fn) {
 
 const big = join(dir, 'events.csv');
 const small = join(dir, 'events-small.csv');
+const tabbed = join(dir, 'events.tsv');
+const quoted = join(dir, 'events-quoted.csv');
 await generate(big, rows);
 await generate(small, refRows);
+await generate(tabbed, rows, '\t');
+await generate(quoted, rows, ',', true);
 console.log(`node ${process.version}; load average ${os.loadavg().map((l) => l.toFixed(1)).join(' ')}; ${os.cpus().length} cores`);
 await measure('newline count (chunked indexOf)', big, () => newlineCount(big));
 await measure('fast path, all 4 columns', big, () => readTable(big, 'fast', ['ts', 'site', 'age', 'amount']));
 await measure('fast path, ts only', big, () => readTable(big, 'fast', ['ts']));
 await measure('byte batches, all 4 columns', big, () => readBytes(big, ['ts', 'site', 'age', 'amount']));
 await measure('byte batches, ts only', big, () => readBytes(big, ['ts']));
+await measure('byte batches, ts only, tab-separated', tabbed, () => readBytes(tabbed, ['ts']));
+await measure('byte batches, ts only, every field quoted', quoted, () => readBytes(quoted, ['ts']));
 await measure('ts parsed from strings', big, () => parseTimes(big, false));
 await measure('ts parsed from bytes', big, () => parseTimes(big, true));
 await measure('reference (csv-parse), all 4 columns', small, () => readTable(small, 'reference', ['ts', 'site', 'age', 'amount']));
