@@ -40,6 +40,29 @@ export interface MeasureSlots {
   distinct: (Set<string> | undefined)[];
 }
 
+/** One measure's cells as plain data (see CellStore.toPartial). */
+export interface MeasurePartial {
+  present: Float64Array;
+  n: Float64Array;
+  sum: Float64Array;
+  comp: Float64Array;
+  min: Float64Array;
+  max: Float64Array;
+  /** Values kept per cell for medians and quantiles (null: none). */
+  values: (Float64Array | null)[];
+  /** Distinct texts per cell, in first-seen order (null: none). */
+  distinct: (string[] | null)[];
+}
+
+/** A store's cells as plain, structured-clonable data: cell i is (group[i], key[i]). */
+export interface StorePartial {
+  size: number;
+  group: Int32Array;
+  key: Float64Array;
+  count: Float64Array;
+  measures: MeasurePartial[];
+}
+
 /** The cells of one rebin: (group, period key) → cell, and the per-cell state. */
 export class CellStore {
   /** Number of cells in use. */
@@ -124,6 +147,50 @@ export class CellStore {
         'a distinct count is exact, so every value is kept per period: use a coarser unit, fewer groups, or raise --max-distinct');
     }
     set.add(text);
+  }
+
+  /** The cells as plain (structured-clonable) data, for the merge of a parallel rebin. */
+  toPartial(): StorePartial {
+    const n = this.size;
+    return {
+      size: n, group: this.group.slice(0, n), key: this.key.slice(0, n), count: this.count.slice(0, n),
+      measures: this.measures.map((s) => ({
+        present: s.present.slice(0, n), n: s.n.slice(0, n), sum: s.sum.slice(0, n), comp: s.comp.slice(0, n),
+        min: s.min.slice(0, n), max: s.max.slice(0, n),
+        values: Array.from({ length: n }, (_, c) => s.buffers[c]?.slice(0, s.lengths[c]) ?? null),
+        distinct: Array.from({ length: n }, (_, c) => (s.distinct[c] === undefined ? null : [...s.distinct[c]!])),
+      })),
+    };
+  }
+
+  /**
+   * Adds the cells of `p` (another store's, over other rows), its group ids mapped by `groupOf`: counts,
+   * compensated sums (the two parts joined by an error-free two-sum, Knuth TAOCP vol. 2 §4.2.2), min, max,
+   * kept values and distinct texts, with the limits checked as if the rows had been added here.
+   */
+  mergePartial(p: StorePartial, groupOf: (id: number) => number): void {
+    for (let i = 0; i < p.size; i++) {
+      const c = this.cell(groupOf(p.group[i]!), p.key[i]!);
+      this.count[c] += p.count[i]!;
+      for (let m = 0; m < this.measures.length; m++) this.mergeMeasure(c, m, p.measures[m]!, i);
+    }
+  }
+
+  private mergeMeasure(c: number, m: number, o: MeasurePartial, i: number): void {
+    const s = this.measures[m]!;
+    s.present[c] += o.present[i]!;
+    s.n[c] += o.n[i]!;
+    const a = s.sum[c]!;
+    const b = o.sum[i]!;
+    const t = a + b;
+    s.comp[c] += (Math.abs(a) >= Math.abs(b) ? a - t + b : b - t + a) + o.comp[i]!;
+    s.sum[c] = t;
+    if (o.min[i]! < s.min[c]!) s.min[c] = o.min[i]!;
+    if (o.max[i]! > s.max[c]!) s.max[c] = o.max[i]!;
+    const values = o.values[i];
+    if (values != null) for (let k = 0; k < values.length; k++) this.push(s, c, values[k]!);
+    const texts = o.distinct[i];
+    if (texts != null) for (const text of texts) this.addDistinct(c, m, text);
   }
 
   /** The compensated sum of measure `m` in cell `c`. */

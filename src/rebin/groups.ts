@@ -44,6 +44,12 @@ export class GroupIndex {
     return fresh;
   }
 
+  /** Id of the group whose values are `tuple` (one per `--by` column), as idOfRow gives it. */
+  idOfTuple(tuple: readonly string[]): number {
+    if (tuple.length <= 1) return this.idOf1(tuple[0] ?? '');
+    return this.idOfRow(tuple.map((v) => [v]), tuple.map((_, i) => i), 0);
+  }
+
   /** Number of groups seen. */
   get size(): number {
     return this.tuples.length;

@@ -1,5 +1,7 @@
 // Public surface of rebin: events (or source periods) into calendar periods, with aggregates, groups and fill.
 export { rebin } from './rebin.js';
+export { rebinFile, PARALLEL_MIN_BYTES } from './parallel.js';
+export type { RebinThreads, RebinPlan } from './parallel.js';
 export type { RebinOptions, RebinResult, RebinRow, RebinSummary, MeasureSummary } from './types.js';
 export { parseAggSpec, parseAggSpecs, parseQuantileType, aggColumns, isAdditive } from './aggregates.js';
 export type { AggKind, AggSpec } from './aggregates.js';

@@ -2,8 +2,8 @@
 // distinct counts; every empty and invalid value counted by reason.
 import type { Diagnostic } from '../errors.js';
 import { shortValue } from '../errors.js';
-import { emptyParsedNumber, inferNumberFormat, makeNumberParser } from '../numbers/index.js';
-import type { NumberParser, ParsedNumber } from '../numbers/index.js';
+import { emptyParsedNumber, makeNumberParser } from '../numbers/index.js';
+import type { NumberFormat, NumberParser, ParsedNumber } from '../numbers/index.js';
 import type { CellStore, MeasureNeeds } from './accumulate.js';
 import type { AggSpec } from './aggregates.js';
 import { needsBuffer, needsNumber } from './aggregates.js';
@@ -33,16 +33,16 @@ export function measureNeeds(columns: readonly string[], aggs: readonly AggSpec[
 }
 
 /**
- * Measure readers for `columns` (at batch positions `slots`), their number formats inferred from
- * `sample(slot)` (the first rows).
+ * Measure readers for `columns` (at batch positions `slots`), reading numbers in `formats` (one per column:
+ * the format inferred from the column's first rows; null for a column read as text only).
  */
 export function makeMeasureReaders(columns: readonly string[], needs: readonly MeasureNeeds[], slots: readonly number[],
-  sample: (slot: number) => readonly string[]): MeasureReader[] {
+  formats: readonly (NumberFormat | null)[]): MeasureReader[] {
   return columns.map((column, i) => {
-    const slot = slots[i]!;
-    const parser = needs[i]!.numbers ? makeNumberParser(inferNumberFormat(sample(slot)).format) : null;
+    const f = formats[i] ?? null;
+    const parser = needs[i]!.numbers && f !== null ? makeNumberParser(f) : null;
     return {
-      column, slot, needs: needs[i]!, parser, out: emptyParsedNumber(),
+      column, slot: slots[i]!, needs: needs[i]!, parser, out: emptyParsedNumber(),
       summary: { column, valid: 0, empty: 0, rejected: 0, rejectedByReason: {} },
     };
   });

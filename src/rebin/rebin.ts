@@ -3,7 +3,7 @@
 import { makeCalendar } from '../calendar/index.js';
 import type { Calendar } from '../calendar/types.js';
 import { QuernError } from '../errors.js';
-import type { ByteBatch, ColumnBatch, TableReader } from '../table/types.js';
+import type { ByteBatch, ColumnBatch, ReadSummary, TableReader } from '../table/types.js';
 import { byteFieldString } from '../table/byte-batch.js';
 import { getZone } from '../time/zone.js';
 import type { Zone } from '../time/zone.js';
@@ -13,16 +13,14 @@ import type { AggSpec } from './aggregates.js';
 import { checkFill, defaultMaxPeriods, fillRange } from './fill.js';
 import { GroupIndex } from './groups.js';
 import { LocalResolver } from './local-time.js';
-import { makeMeasureReaders, measureNeeds } from './measures.js';
+import { measureNeeds } from './measures.js';
 import { refuseNonAdditive } from './period-source.js';
 import { buildRows, occupiedKeys } from './rows.js';
-import { RebinScan } from './scan.js';
-import type { ScanSetup } from './scan.js';
-import { timeHints, timeReading } from './time-column.js';
+import { RebinScan, requirePolicy } from './scan.js';
+import type { ScanCounts, ScanSetup } from './scan.js';
+import { SAMPLE, inferFormats, makeSetup } from './setup.js';
+import type { ColumnPlan, ReadFormats } from './setup.js';
 import type { RebinOptions, RebinResult, RebinSummary } from './types.js';
-
-/** Values of the time column sampled to infer its format. */
-const SAMPLE = 2000;
 
 /**
  * Rebins the rows of `reader` into periods of `options.calendar`: each row's time is parsed (offsets
@@ -30,6 +28,23 @@ const SAMPLE = 2000;
  * added to its (period, group) cell. Data problems are counted in the summary; misuse throws QuernError.
  */
 export async function rebin(reader: TableReader, options: RebinOptions): Promise<RebinResult> {
+  const p = prepareRebin(reader, options);
+  const { setup, scan } = await scanTable(reader, options, p, null);
+  return finishRebin(reader.summary(), options, p, setup, scan.counts);
+}
+
+/** What a rebin fixes before reading any row: aggregates, calendar, zone and the columns to read. */
+export interface PreparedRebin {
+  aggs: AggSpec[];
+  cal: Calendar;
+  zone: Zone;
+  plan: ColumnPlan;
+  /** True when the time column is read from bytes (fast engine, and no --by or measure reads it). */
+  bytes: boolean;
+}
+
+/** Checks the options against the table's header and fixes what the scan needs (QuernError on misuse). */
+export function prepareRebin(reader: TableReader, options: RebinOptions): PreparedRebin {
   const aggs = [...(options.aggregates ?? parseAggSpecs([]))];
   if (options.assign === 'apportion') refuseNonAdditive(aggs);
   const cal = makeCalendar(options.calendar);
@@ -38,33 +53,68 @@ export async function rebin(reader: TableReader, options: RebinOptions): Promise
   checkOutputNames(by, aggs);
   const measureCols = aggColumns(aggs);
   const columns = uniqueColumns(reader, [options.time, ...by, ...measureCols]);
-  const slot = (name: string): number => columns.indexOf(name);
-  const needs = measureNeeds(measureCols, aggs);
-  const store = new CellStore(needs, { ...DEFAULT_LIMITS, ...options.limits });
-  const groups = new GroupIndex(by.length);
-  if (by.length === 0) groups.idOf1('');
-  const resolver = new LocalResolver(zone);
-  const make = (first: ColumnBatch): ScanSetup => makeSetup(reader, options, cal, first, slot, by, measureCols, needs, store, groups, resolver);
+  const plan: ColumnPlan = { columns, by, measureCols, needs: measureNeeds(measureCols, aggs) };
   // The fast engine reads the time column as bytes, when it is needed nowhere else (a --by or measure
   // on it reads its text); the reference engine keeps the string path, so the two can be compared.
-  if (reader.engine === 'fast' && !by.includes(options.time) && !measureCols.includes(options.time)) {
-    const { setup, scan } = await scanBytes(reader, columns, make, (ms) => zone.toWall(ms));
-    return finish(reader, options, cal, zone, setup, scan, aggs, by, measureCols);
-  }
-  let scan: RebinScan | null = null;
-  let setup: ScanSetup | null = null;
-  for await (const b of reader.batches(columns)) {
-    if (scan === null) {
-      setup = makeSetup(reader, options, cal, b, slot, by, measureCols, needs, store, groups, resolver);
-      scan = new RebinScan(setup, (ms) => zone.toWall(ms));
+  const bytes = reader.engine === 'fast' && !by.includes(options.time) && !measureCols.includes(options.time);
+  return { aggs, cal, zone, plan, bytes };
+}
+
+/** A fresh scan setup over empty cells and groups, reading the columns in `formats`. */
+export function freshSetup(file: string, options: RebinOptions, p: PreparedRebin, formats: ReadFormats): ScanSetup {
+  const store = new CellStore(p.plan.needs, { ...DEFAULT_LIMITS, ...options.limits });
+  const groups = new GroupIndex(p.plan.by.length);
+  if (p.plan.by.length === 0) groups.idOf1('');
+  return makeSetup(file, options, p.cal, p.plan, formats, store, groups, new LocalResolver(p.zone));
+}
+
+/**
+ * Reads every row of `reader` into a fresh scan. The formats are `formats` when given (a range of a
+ * parallel rebin), else inferred from the first rows (the same rows on the byte and the string path).
+ */
+export async function scanTable(reader: TableReader, options: RebinOptions, p: PreparedRebin,
+  formats: ReadFormats | null): Promise<{ setup: ScanSetup; scan: RebinScan }> {
+  const toWall = (ms: number): number => p.zone.toWall(ms);
+  const make = (first: ColumnBatch): ScanSetup => freshSetup(reader.file, options, p, formats ?? inferFormats(options, p.cal, p.plan, first));
+  if (p.bytes) return scanBytes(reader, p.plan.columns, make, toWall);
+  let ready: { setup: ScanSetup; scan: RebinScan } | null = null;
+  for await (const b of reader.batches(p.plan.columns)) {
+    if (ready === null) {
+      const setup = make(b);
+      ready = { setup, scan: new RebinScan(setup, toWall) };
     }
-    scan.batch(b);
+    ready.scan.batch(b);
   }
-  if (scan === null || setup === null) {
-    setup = makeSetup(reader, options, cal, { length: 0, lines: [], values: columns.map(() => []) }, slot, by, measureCols, needs, store, groups, resolver);
-    scan = new RebinScan(setup, (ms) => zone.toWall(ms));
+  if (ready === null) {
+    const setup = make(emptyBatch(p.plan.columns.length));
+    ready = { setup, scan: new RebinScan(setup, toWall) };
   }
-  return finish(reader, options, cal, zone, setup, scan, aggs, by, measureCols);
+  return ready;
+}
+
+/**
+ * The formats a whole read of `reader` would infer: from the same first rows (byte or string path).
+ * Reads only the first rows; the reader is spent afterwards.
+ */
+export async function sampleFormats(reader: TableReader, options: RebinOptions, p: PreparedRebin): Promise<ReadFormats> {
+  const cols = p.plan.columns;
+  if (!p.bytes) {
+    for await (const b of reader.batches(cols)) return inferFormats(options, p.cal, p.plan, b);
+    return inferFormats(options, p.cal, p.plan, emptyBatch(cols.length));
+  }
+  const want = Math.min(SAMPLE, reader.batchSize);
+  const pending: ByteBatch[] = [];
+  let have = 0;
+  for await (const b of reader.byteBatches([cols[0]!], cols.slice(1))) {
+    pending.push(b);
+    have += b.length;
+    if (have >= want) break;
+  }
+  return inferFormats(options, p.cal, p.plan, sampleOf(pending, want, cols.length));
+}
+
+function emptyBatch(width: number): ColumnBatch {
+  return { length: 0, lines: [], values: Array.from({ length: width }, () => []) };
 }
 
 /**
@@ -112,28 +162,30 @@ function sampleOf(batches: readonly ByteBatch[], n: number, width: number): Colu
   return { length: lines.length, lines, values };
 }
 
-// After the scan: the policy check, the fill range and its guard, the rows and the summary.
-function finish(reader: TableReader, options: RebinOptions, cal: Calendar, zone: Zone, setup: ScanSetup, scan: RebinScan,
-  aggs: readonly AggSpec[], by: readonly string[], measureCols: readonly string[]): RebinResult {
-  scan.requirePolicy();
+/**
+ * After the scan (of one read, or the merge of a parallel one): the policy check, the fill range and its
+ * guard, the rows and the summary. `read` is the table reader's row accounting.
+ */
+export function finishRebin(read: ReadSummary, options: RebinOptions, p: PreparedRebin, setup: ScanSetup, c: ScanCounts): RebinResult {
+  const { cal, zone, aggs, plan } = p;
+  requirePolicy(c, setup.assign, cal);
   const { store, groups } = setup;
-  const c = scan.counts;
   const fill = options.fill ?? true;
   const range = fill ? fillRange(c.extremes, setup.fromKey, setup.untilKey) : null;
   if (range !== null) {
     const explicit = setup.fromKey !== null && setup.untilKey !== null;
     checkFill(range, occupiedKeys(store), c.extremes, options.maxPeriods ?? defaultMaxPeriods(cal.unit, cal.step), cal, explicit);
   }
-  const measureOf = aggs.map((a) => (a.column === null ? -1 : measureCols.indexOf(a.column)));
+  const measureOf = aggs.map((a) => (a.column === null ? -1 : plan.measureCols.indexOf(a.column)));
   const quantileType = options.quantileType ?? 7;
   const rows = fill && range === null ? [] : buildRows({ cal, zone, store, groups, aggs, measureOf, quantileType, range });
-  const summary = summarize(reader, options, setup, scan, rows.filter((r) => r.filled).length);
+  const summary = summarize(read, options, setup, c, rows.filter((r) => r.filled).length);
   summary.periods = range !== null ? range.last - range.first + 1 : occupiedKeys(store).length;
   return {
     unit: cal.unit, step: cal.step, zone: cal.zone, weekStart: cal.weekStart, fiscalStart: { ...cal.fiscalStart },
     fiscalLabel: cal.fiscalLabel, quantileType,
-    columns: ['period', 'start', 'end', ...by, ...aggs.map((a) => a.name)],
-    groupColumns: [...by], aggregates: aggs.map((a) => a.name), rows, summary,
+    columns: ['period', 'start', 'end', ...plan.by, ...aggs.map((a) => a.name)],
+    groupColumns: [...plan.by], aggregates: aggs.map((a) => a.name), rows, summary,
   };
 }
 
@@ -156,23 +208,7 @@ function uniqueColumns(reader: TableReader, names: readonly string[]): string[] 
   return out;
 }
 
-function makeSetup(reader: TableReader, o: RebinOptions, cal: Calendar, first: ColumnBatch,
-  slot: (n: string) => number, by: readonly string[], measureCols: readonly string[], needs: ReturnType<typeof measureNeeds>,
-  store: CellStore, groups: GroupIndex, resolver: LocalResolver): ScanSetup {
-  const sample = (s: number): readonly string[] => first.values[s]!.slice(0, SAMPLE);
-  const time = timeReading(sample(0), o.timeFormat ?? null, { ...timeHints(o.time, o.dayOrder), fiscalStart: cal.fiscalStart, fiscalLabel: cal.fiscalLabel });
-  const measures = makeMeasureReaders(measureCols, needs, measureCols.map(slot), sample);
-  const source = o.sourceUnit ? { cal: makeCalendar({ ...o.calendar, unit: o.sourceUnit, step: 1 }), anchor: o.sourceAnchor ?? 'start' } : null;
-  return {
-    file: reader.file, timeColumn: o.time, cal, time, resolver, store, groups, bySlots: by.map(slot), measures,
-    fromKey: o.from == null ? null : cal.index(o.from), untilKey: o.until == null ? null : cal.index(o.until),
-    assign: o.assign ?? null, source, maxExamples: o.maxExamples ?? 5,
-  };
-}
-
-function summarize(reader: TableReader, o: RebinOptions, setup: ScanSetup, scan: RebinScan, filled: number): RebinSummary {
-  const t = reader.summary();
-  const c = scan.counts;
+function summarize(t: ReadSummary, o: RebinOptions, setup: ScanSetup, c: ScanCounts, filled: number): RebinSummary {
   const rejectedByReason: Record<string, number> = { ...t.rejectedByReason };
   for (const [k, v] of Object.entries(c.rejectedByReason)) rejectedByReason[k] = (rejectedByReason[k] ?? 0) + v;
   const notes: string[] = [];
@@ -187,7 +223,7 @@ function summarize(reader: TableReader, o: RebinOptions, setup: ScanSetup, scan:
     notes.push(`${c.leapSeconds} value${c.leapSeconds === 1 ? ' was a leap second' : 's were leap seconds'} (23:59:60, first on line ${c.firstLeapSecondLine}), read as 23:59:59.999 so ${c.leapSeconds === 1 ? 'it stays' : 'they stay'} in ${c.leapSeconds === 1 ? 'its' : 'their'} own minute and day`);
   }
   const summary: RebinSummary = {
-    file: reader.file, rowsRead: t.rowsRead, rowsUsed: c.used, rowsEmpty: c.empty, rowsRejected: t.rowsRejected + c.rejected,
+    file: t.file, rowsRead: t.rowsRead, rowsUsed: c.used, rowsEmpty: c.empty, rowsRejected: t.rowsRejected + c.rejected,
     rejectedByReason, rowsOutside: c.outside, examples: [...t.examples, ...c.examples].slice(0, o.maxExamples ?? 5),
     periods: 0, groups: setup.groups.size, filledRows: filled,
     localTime: { ...setup.resolver.counts, rule: 'a skipped reading moves forward by the gap; a repeated one takes the earlier instant' },
@@ -196,6 +232,7 @@ function summarize(reader: TableReader, o: RebinOptions, setup: ScanSetup, scan:
     measures: setup.measures.map((m) => ({ ...m.summary, rejectedByReason: { ...m.summary.rejectedByReason } })),
     notes,
   };
+  if (filled > 0 && summary.rowsRejected > 0) notes.push(rejectedHint(filled, summary.rowsRejected));
   const sum = summary.rowsUsed + summary.rowsEmpty + summary.rowsRejected + summary.rowsOutside;
   if (sum !== summary.rowsRead) {
     throw new QuernError('E_INTERNAL', `row accounting is off: ${sum} rows placed, empty, rejected or outside, but ${summary.rowsRead} read`);
@@ -203,9 +240,16 @@ function summarize(reader: TableReader, o: RebinOptions, setup: ScanSetup, scan:
   return summary;
 }
 
+// A filled (empty) period next to rejected rows may be empty only because its row was rejected: a rejected
+// row has no period quern may place it in, so the note says so rather than naming one.
+function rejectedHint(filled: number, rejected: number): string {
+  const rows = rejected === 1 ? '1 row was' : `${rejected.toLocaleString('en-US')} rows were`;
+  const periods = filled === 1 ? '1 filled row holds' : `${filled.toLocaleString('en-US')} filled rows hold`;
+  return `${periods} no source row while ${rows} rejected: a period may be empty only because its row was rejected (see the examples)`;
+}
+
 function offsetWords(minutes: number): string {
   const sign = minutes < 0 ? '-' : '+';
   const a = Math.abs(minutes);
   return `${sign}${String(Math.floor(a / 60)).padStart(2, '0')}:${String(a % 60).padStart(2, '0')}`;
 }
-

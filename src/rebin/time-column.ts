@@ -5,7 +5,7 @@ import type { TimeFormat } from '../time/format.js';
 import { inferTimeFormat } from '../time/infer.js';
 import type { InferHints } from '../time/infer-types.js';
 import { makeTimeParser } from '../time/parser.js';
-import { makeTimeBytesParser } from '../time/bytes-parser.js';
+import { isoFastLane, makeTimeBytesParser } from '../time/bytes-parser.js';
 import type { TimeBytesParser } from '../time/bytes-parser.js';
 import type { TimeParserOptions } from '../time/parser.js';
 import type { ParsedTime } from '../time/types.js';
@@ -20,6 +20,8 @@ export interface TimeReading {
   parse(text: string, out: ParsedTime): string | null;
   /** The same parser over UTF-8 bytes (same results and reasons), for byte batches. */
   parseBytes: TimeBytesParser;
+  /** True when a value `fastIsoBytes` reads needs no other parse (src/time/bytes-parser.ts isoFastLane). */
+  isoFast: boolean;
 }
 
 /** Inference hints from a column name and a stated day order. */
@@ -38,10 +40,19 @@ export function splitReason(reason: string): { code: string; message: string } {
  * (the column's first values). Throws QuernError 'E_FORMAT' when no format fits.
  */
 export function timeReading(sample: readonly string[], formatId: string | null, options: TimeParserOptions & InferHints = {}): TimeReading {
-  const format = formatId !== null ? formatOf(formatId) : inferFormat(sample, options);
+  return timeReadingOf(inferTimeReadingFormat(sample, formatId, options), options);
+}
+
+/** The format of a time column: `formatId` when given (QuernError 'E_USAGE' if unknown), else inferred from `sample`. */
+export function inferTimeReadingFormat(sample: readonly string[], formatId: string | null, options: TimeParserOptions & InferHints = {}): TimeFormat {
+  return formatId !== null ? formatOf(formatId) : inferFormat(sample, options);
+}
+
+/** The reading of a time column written in `format` (a format of timeFormat or inferTimeFormat). */
+export function timeReadingOf(format: TimeFormat, options: TimeParserOptions = {}): TimeReading {
   const parse = makeTimeParser(format, options);
   const parseBytes = makeTimeBytesParser(format, options);
-  return { id: format.id, label: format.label, kind: format.kind, parse, parseBytes };
+  return { id: format.id, label: format.label, kind: format.kind, parse, parseBytes, isoFast: isoFastLane(format, options) };
 }
 
 function formatOf(id: string): TimeFormat {

@@ -6,6 +6,7 @@ import { describe, it, expect } from 'vitest';
 import fc from 'fast-check';
 import { Temporal } from 'temporal-polyfill';
 import { emptyParsedTime, makeTimeParser, makeTimeBytesParser, parseIsoBytes, fastIsoBytes } from '../../src/time/index.js';
+import { newIsoDateMemo } from '../../src/time/iso-bytes.js';
 import type { ParsedTime } from '../../src/time/index.js';
 
 const RUNS = Number(process.env.QUERN_FUZZ_RUNS ?? 2000);
@@ -105,6 +106,80 @@ describe('parseIsoBytes(buf, start, end, out) agrees with the string parser', ()
       }),
       { numRuns: Math.min(RUNS, 500) },
     );
+  });
+});
+
+// Runs of values that share their date (as the rows of a log do), so the memo of the last date is hit,
+// missed and replaced: a value whose date bytes equal the memo's, then a near-valid mutation of it.
+const runArb = fc.array(
+  fc.tuple(fc.oneof(valueArb, mutatedArb), fc.array(fc.oneof(fc.constant(''), mutatedArb, valueArb.map((v) => v.slice(10))), { maxLength: 4 })),
+  { minLength: 1, maxLength: 8 },
+).map((runs) => runs.flatMap(([first, tails]) => [first, ...tails.map((t) => first.slice(0, 10) + t)]));
+
+describe('fastIsoBytes(buf, start, end, out, memo) agrees with fastIsoBytes without a memo', () => {
+  // Differential test: the memo lane against the plain lane and against the string parser (no oracle
+  // outside quern is needed for "the same answer twice"; the plain lane is held to Temporal above).
+  const text = makeTimeParser('iso-date-time-offset');
+  it(`gives the same answer on ${Math.ceil(RUNS / 4)} runs of values sharing their date, in one buffer and in fresh ones`, () => {
+    const a = emptyParsedTime();
+    const b = emptyParsedTime();
+    const c = emptyParsedTime();
+    fc.assert(
+      fc.property(runArb, aroundArb, fc.boolean(), (values, around, oneBuffer) => {
+        const memo = newIsoDateMemo();
+        const pad = Buffer.from(around);
+        const parts: Buffer[] = [];
+        const at: Array<[number, number]> = [];
+        let pos = 0;
+        for (const v of values) {
+          const field = Buffer.from(v);
+          parts.push(pad, field);
+          at.push([pos + pad.length, pos + pad.length + field.length]);
+          pos += pad.length + field.length;
+        }
+        parts.push(pad);
+        const joined = Buffer.concat(parts);
+        values.forEach((v, i) => {
+          const [s, e] = at[i]!;
+          const buf = oneBuffer ? joined : Buffer.concat([pad, Buffer.from(v), pad]);
+          const off = oneBuffer ? 0 : s - pad.length;
+          const plain = fastIsoBytes(buf, s - off, e - off, a);
+          expect(fastIsoBytes(buf, s - off, e - off, b, memo)).toBe(plain);
+          if (plain) {
+            same(a, b);
+            expect(text(v, c)).toBeNull();
+            same(c, b);
+          }
+        });
+      }),
+      { numRuns: Math.ceil(RUNS / 4) },
+    );
+  });
+
+  it.each([
+    // [first, second]: the second shares the first's date bytes; expected from ISO 8601 / RFC 3339 rules (from memory)
+    ['2021-02-28T10:00:00Z', '2021-02-28T24:00:00Z'], // 24:00 is left to the general scanner
+    ['2021-02-28T10:00:00Z', '2021-02-28'], // a date alone after a date-time of the same day
+    ['2021-02-28T10:00:00Z', '2021-02-28T10:00:60Z'], // a leap second is left to the general scanner
+    ['2024-02-29T10:00:00Z', '2024-02-29 10:00:00+05:30'], // a space separator and an offset
+  ])('a memo holding %j reads %j as no memo does', (first, second) => {
+    const memo = newIsoDateMemo();
+    const x = emptyParsedTime();
+    const y = emptyParsedTime();
+    expect(fastIsoBytes(Buffer.from(first), 0, first.length, x, memo)).toBe(true);
+    const buf = Buffer.from(`,${second},`);
+    const plain = fastIsoBytes(buf, 1, 1 + second.length, x);
+    expect(fastIsoBytes(buf, 1, 1 + second.length, y, memo)).toBe(plain);
+    if (plain) same(x, y);
+  });
+
+  it('a memo never accepts an invalid date because its bytes came after a valid one (2021-02-29 is no date)', () => {
+    // 2021 is not a leap year (ISO 8601 proleptic Gregorian calendar, from memory)
+    const memo = newIsoDateMemo();
+    const out = emptyParsedTime();
+    expect(fastIsoBytes(Buffer.from('2021-02-28T00:00:00Z'), 0, 20, out, memo)).toBe(true);
+    expect(fastIsoBytes(Buffer.from('2021-02-29T00:00:00Z'), 0, 20, out, memo)).toBe(false);
+    expect(fastIsoBytes(Buffer.from('2021-02-29T00:00:00Z'), 0, 20, out, memo)).toBe(false);
   });
 });
 
