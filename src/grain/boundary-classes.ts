@@ -144,12 +144,8 @@ function wholeDayVector(t: Tables, days: number, tod: number, cache: DayCache): 
   return v;
 }
 
-/** The class vector of one wall-clock value (ms); `cache` speeds up runs of values on the same day. */
-export function vectorOf(wallMs: number, cache: DayCache): number {
-  const t = tables ?? (tables = build());
-  const days = Math.floor(wallMs / DAY);
-  const tod = wallMs - days * DAY;
-  if (tod === 0 || tod === DAY - 1 || tod === DAY - SECOND) return wholeDayVector(t, days, tod, cache);
+/** vectorOf for a time of day that is not a 32-bit integer, in double arithmetic. */
+function fractionVector(t: Tables, tod: number): number {
   const r = tod % SECOND;
   if (r === 0) {
     const s = tod / SECOND;
@@ -162,4 +158,28 @@ export function vectorOf(wallMs: number, cache: DayCache): number {
     return v >= 0 ? v : endVector(t, s);
   }
   return Number.isInteger(tod) ? t.msOnly : t.none;
+}
+
+/** The class vector of one wall-clock value (ms); `cache` speeds up runs of values on the same day. */
+export function vectorOf(wallMs: number, cache: DayCache): number {
+  const t = tables ?? (tables = build());
+  const days = Math.floor(wallMs / DAY);
+  const tod = wallMs - days * DAY;
+  if (tod === 0 || tod === DAY - 1 || tod === DAY - SECOND) return wholeDayVector(t, days, tod, cache);
+  // Integer arithmetic from here when the time of day is a 32-bit integer, as every time of day of a
+  // finite value in whole milliseconds is; the rest (fractions, NaN) takes the same rule in doubles.
+  const ms = tod | 0;
+  if (ms !== tod) return fractionVector(t, tod);
+  const r = ms % SECOND;
+  if (r === 0) {
+    const s = (ms / SECOND) | 0;
+    const v = t.start[s]!;
+    return v >= 0 ? v : startVector(t, s);
+  }
+  if (r === 999) {
+    const s = ((ms - 999) / SECOND) | 0;
+    const v = t.end1[s]!;
+    return v >= 0 ? v : endVector(t, s);
+  }
+  return t.msOnly;
 }

@@ -7,6 +7,8 @@
 // class counts when read.
 import { MAX_VECTORS, missedBy, passedBy, vectorOf } from './boundary-classes.js';
 import { CANDIDATES } from './candidates.js';
+import type { ParsedRows } from './parsed-rows.js';
+import type { TextAt } from './text-at.js';
 import type { ValueExample } from './types.js';
 
 /** How many non-matching examples each candidate keeps. */
@@ -43,6 +45,37 @@ export class BoundaryCounter {
       this.vecDistinct[v] += 1;
     }
     if (this.saturated[v] === 0) this.collect(v, line, text);
+    this.totals = null;
+  }
+
+  /**
+   * Adds one row that is not a new distinct value (`add(wallMs, 1, false, line, text)`), making the text of
+   * row `i` of `src` only when a candidate still wants it as an example.
+   */
+  addRow(wallMs: number, line: number, src: TextAt, i: number): void {
+    const v = vectorOf(wallMs, this.cache);
+    this.rows += 1;
+    this.vecRows[v] += 1;
+    if (this.saturated[v] === 0) this.collect(v, line, src.text(i));
+    this.totals = null;
+  }
+
+  /** `addRow` of the walls [from, p.length) of `p` in order. */
+  addRows(p: ParsedRows, from: number): void {
+    const walls = p.wall;
+    const n = p.length;
+    const cache = this.cache;
+    const vecRows = this.vecRows;
+    const saturated = this.saturated;
+    for (let j = from; j < n; j++) {
+      const v = vectorOf(walls[j]!, cache);
+      vecRows[v] += 1;
+      if (saturated[v] === 0) {
+        const row = p.row[j]!;
+        this.collect(v, p.lines[row]!, p.at.text(row));
+      }
+    }
+    this.rows += n - from;
     this.totals = null;
   }
 

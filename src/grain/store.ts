@@ -3,6 +3,8 @@
 // a reservoir sample for the zone search, and from then on only counts.
 import { HyperLogLog } from '../profile/hll.js';
 import { BoundaryCounter } from './counter.js';
+import type { ParsedRows } from './parsed-rows.js';
+import type { TextAt } from './text-at.js';
 import { ValueTable } from './value-table.js';
 import type { TimedValue } from './zones.js';
 
@@ -34,18 +36,40 @@ export class DistinctStore {
     return this.table === null ? null : this.table.values();
   }
 
-  /** Adds one parsed value. */
-  add(ms: number, offset: number, line: number, text: string): void {
+  /** Adds one parsed value, on line `line`; its text is row `i` of `src`, made only where it is kept. */
+  add(ms: number, offset: number, line: number, src: TextAt, i: number): void {
     const table = this.table;
     if (table !== null) {
-      if (table.add(ms, offset, line, text, this.cap) !== 'full') return;
+      if (table.add(ms, offset, line, src, i, this.cap) !== 'full') return;
       this.overflow(table.values());
     }
-    const wall = Number.isNaN(offset) ? ms : ms + offset * 60_000;
-    this.stream!.add(wall, 1, false, line, text);
+    const wall = offset !== offset ? ms : ms + offset * 60_000;
+    this.stream!.addRow(wall, line, src, i);
     this.sketch!.addNumber(ms);
     const slot = this.slot();
-    if (slot >= 0) this.reservoir[slot] = { ms, offset, weight: 1, line, text, wall };
+    if (slot >= 0) this.reservoir[slot] = { ms, offset, weight: 1, line, text: src.text(i), wall };
+  }
+
+  /** `add` of every value of `p`, in order. */
+  addRows(p: ParsedRows): void {
+    let from = 0;
+    const table = this.table;
+    if (table !== null) {
+      from = table.addRows(p, 0, this.cap);
+      if (from === p.length) return;
+      this.overflow(table.values());
+    }
+    this.stream!.addRows(p, from);
+    const sketch = this.sketch!;
+    const ms = p.ms;
+    const n = p.length;
+    for (let j = from; j < n; j++) sketch.addNumber(ms[j]!);
+    for (let j = from; j < n; j++) {
+      const slot = this.slot();
+      if (slot < 0) continue;
+      const row = p.row[j]!;
+      this.reservoir[slot] = { ms: ms[j]!, offset: p.offset[j]!, weight: 1, line: p.lines[row]!, text: p.at.text(row), wall: p.wall[j]! };
+    }
   }
 
   /** Exact number of distinct values, or the sketch's estimate past the cap. */
@@ -70,9 +94,10 @@ export class DistinctStore {
 
   /** Reservoir slot for the next row (Vitter's algorithm R), or -1 when the row is not kept. */
   private slot(): number {
-    this.seen++;
+    const seen = (this.seen + 1) >>> 0;
+    this.seen = seen;
     if (this.reservoir.length < RESERVOIR_SIZE) return this.reservoir.length;
-    const j = this.random() % this.seen;
+    const j = this.random() % seen; // both unsigned 32-bit: an integer remainder
     return j < RESERVOIR_SIZE ? j : -1;
   }
 
@@ -82,7 +107,7 @@ export class DistinctStore {
     x ^= x << 13;
     x ^= x >>> 17;
     x ^= x << 5;
-    this.rng = x >>> 0;
-    return this.rng;
+    this.rng = x | 0; // the same 32 bits, kept as a small integer
+    return x >>> 0;
   }
 }

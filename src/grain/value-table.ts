@@ -2,7 +2,9 @@
 // 32-bit hash of the value's epoch milliseconds (hll.ts). No object per distinct value while the file streams;
 // the StoredValue records the analysis reads are made once, at the end.
 import { hashNumber } from '../profile/hll.js';
+import type { ParsedRows } from './parsed-rows.js';
 import type { StoredValue } from './store.js';
+import type { TextAt } from './text-at.js';
 
 export class ValueTable {
   size = 0;
@@ -16,8 +18,11 @@ export class ValueTable {
   /** Entry of the last value added: runs of equal values (sorted files, dates) skip the probe. */
   private last = -1;
 
-  /** Adds one row of `ms`: counted on its entry, added as a new entry while `size < cap`, else 'full'. */
-  add(ms: number, offset: number, line: number, text: string, cap: number): 'counted' | 'added' | 'full' {
+  /**
+   * Adds one row of `ms`: counted on its entry, added as a new entry while `size < cap`, else 'full'. The
+   * text of row `row` of `src` is made only for a new entry.
+   */
+  add(ms: number, offset: number, line: number, src: TextAt, row: number, cap: number): 'counted' | 'added' | 'full' {
     const last = this.last;
     if (last >= 0 && this.ms[last] === ms) {
       this.weight[last] += 1;
@@ -36,6 +41,45 @@ export class ValueTable {
       i = (i + 1) & mask;
     }
     if (this.size >= cap) return 'full';
+    this.append(ms, offset, line, src.text(row), i);
+    return 'added';
+  }
+
+  /**
+   * `add` of the values [from, p.length) of `p` in order; returns the index of the first value that is
+   * 'full' (p.length when none is).
+   */
+  addRows(p: ParsedRows, from: number, cap: number): number {
+    const msOf = p.ms;
+    const n = p.length;
+    for (let j = from; j < n; j++) {
+      const ms = msOf[j]!;
+      const last = this.last;
+      if (last >= 0 && this.ms[last] === ms) {
+        this.weight[last] += 1;
+        continue;
+      }
+      const slots = this.slots;
+      const mask = slots.length - 1;
+      let i = hashNumber(ms) & mask;
+      let e = slots[i]!;
+      while (e !== 0 && this.ms[e - 1] !== ms) {
+        i = (i + 1) & mask;
+        e = slots[i]!;
+      }
+      if (e !== 0) {
+        this.weight[e - 1] += 1;
+        this.last = e - 1;
+        continue;
+      }
+      if (this.size >= cap) return j;
+      const row = p.row[j]!;
+      this.append(ms, p.offset[j]!, p.lines[row]!, p.at.text(row), i);
+    }
+    return n;
+  }
+
+  private append(ms: number, offset: number, line: number, text: string, slot: number): void {
     const n = this.size++;
     if (n === this.ms.length) this.grow();
     this.ms[n] = ms;
@@ -43,10 +87,9 @@ export class ValueTable {
     this.weight[n] = 1;
     this.line[n] = line;
     this.text[n] = text;
-    this.slots[i] = n + 1;
+    this.slots[slot] = n + 1;
     this.last = n;
     if (2 * this.size > this.slots.length) this.rehash();
-    return 'added';
   }
 
   /** The distinct values in order of first appearance, with their rows. */

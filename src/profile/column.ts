@@ -1,14 +1,21 @@
 // The streaming accumulator of one column for the profile: emptiness, distinct values, lengths, numeric
 // evidence (under the column's own number format, inferred from its head) and, for date-like columns,
-// everything grain detection gathers — all in the same single pass.
+// everything grain detection gathers — all in the same single pass. Values arrive as strings (`push`) or as
+// a column of a byte batch (`pushBatch`, the fast path), with the same evidence either way.
 import { GrainColumn } from '../grain/column.js';
+import { asciiString } from '../table/ascii.js';
+import { byteFieldString } from '../table/byte-batch.js';
+import type { ByteBatch } from '../table/types.js';
 import { inferNumberFormat } from '../numbers/infer.js';
 import { makeNumberParser } from '../numbers/parse.js';
+import { emptyFieldScan, scanField } from './byte-scan.js';
 import { DistinctCounter } from './distinct.js';
 import { NumericEvidence } from './numeric.js';
 
 /** Non-empty values from the head of the column used to infer its number format. */
 export const NUMBER_HEAD = 1_000;
+/** Values up to this many bytes are counted through DistinctCounter's cache of short values. */
+const SHORT_VALUE = 6;
 
 export class ProfileColumn {
   empty = 0;
@@ -20,6 +27,7 @@ export class ProfileColumn {
   /** True when numeric evidence stopped after the head (the head was mostly not numbers). */
   numbersStopped = false;
   private timeMode: boolean | null = null;
+  private readonly scan = emptyFieldScan();
   private head: string[] | null = [];
 
   constructor(readonly name: string) {
@@ -44,6 +52,130 @@ export class ProfileColumn {
       return;
     }
     if (!this.numbersStopped) this.numeric!.add(text);
+  }
+
+  /**
+   * push() of every value of byte column `c` of a byte batch, in order: the same evidence. The heads are
+   * read as strings; after them, grain reads its own bytes (GrainColumn.pushBatch) and this column's
+   * counts, distinct values and numbers come from the bytes of an ASCII batch — a string is made only for
+   * a distinct value seen for the first time and a number that is not a plain decimal.
+   */
+  pushBatch(b: ByteBatch, c: number): void {
+    const n = b.length;
+    let i = 0;
+    while (i < n && (this.head !== null || !this.grain.decided)) {
+      this.push(byteFieldString(b, c, i), b.lines[i]!);
+      i++;
+    }
+    if (i === n) return;
+    // Both heads are read: what a value still needs is known and fixed from here on.
+    const timeMode = this.timeDistinct();
+    const rest = i === 0 ? b : sliceBatch(b, c, i);
+    if (!this.grain.notTime) this.grain.pushBatch(rest, c);
+    if (b.ascii) this.restAscii(rest, c, timeMode);
+    else this.restStrings(rest, c, timeMode);
+  }
+
+  /** Counts, distinct values and numbers of an ASCII byte column once the heads are read. */
+  private restAscii(b: ByteBatch, c: number, timeMode: boolean): void {
+    const distinct = timeMode ? null : this.distinct;
+    const numeric = this.numbersStopped ? null : this.numeric!;
+    // One loop per kind of work left, so that each loop holds only what its values need.
+    if (numeric === null && distinct === null) this.countAscii(b, c);
+    else if (numeric === null) this.distinctAscii(b, c, distinct!);
+    else this.numbersAscii(b, c, distinct, numeric);
+  }
+
+  /** Empty and non-empty values and their lengths (a column whose distinct values and numbers are settled). */
+  private countAscii(b: ByteBatch, c: number): void {
+    const starts = b.starts[c]!;
+    const ends = b.ends[c]!;
+    const decoded = b.decoded[c]!;
+    let empty = 0;
+    let length = 0;
+    for (let i = 0; i < b.length; i++) {
+      const buf = decoded[i] === 1 ? b.side : b.buf;
+      const s = starts[i]!;
+      const e = ends[i]!;
+      if (s === e || ((buf[s] === 32 || buf[s] === 9) && isBlankBytes(buf, s, e))) empty++;
+      else length += e - s;
+    }
+    this.tally(b.length, empty, length);
+  }
+
+  private distinctAscii(b: ByteBatch, c: number, distinct: DistinctCounter): void {
+    const starts = b.starts[c]!;
+    const ends = b.ends[c]!;
+    const decoded = b.decoded[c]!;
+    let empty = 0;
+    let length = 0;
+    for (let i = 0; i < b.length; i++) {
+      const buf = decoded[i] === 1 ? b.side : b.buf;
+      const s = starts[i]!;
+      const e = ends[i]!;
+      if (s === e || ((buf[s] === 32 || buf[s] === 9) && isBlankBytes(buf, s, e))) {
+        empty++;
+        continue;
+      }
+      length += e - s;
+      distinct.addBytes(buf, s, e);
+    }
+    this.tally(b.length, empty, length);
+  }
+
+  private numbersAscii(b: ByteBatch, c: number, distinct: DistinctCounter | null, numeric: NumericEvidence): void {
+    const starts = b.starts[c]!;
+    const ends = b.ends[c]!;
+    const decoded = b.decoded[c]!;
+    const scan = this.scan;
+    const dot = numeric.dotIsDecimal;
+    let empty = 0;
+    let length = 0;
+    for (let i = 0; i < b.length; i++) {
+      const buf = decoded[i] === 1 ? b.side : b.buf;
+      const s = starts[i]!;
+      const e = ends[i]!;
+      if (s === e || ((buf[s] === 32 || buf[s] === 9) && isBlankBytes(buf, s, e))) {
+        empty++;
+        continue;
+      }
+      length += e - s;
+      if (distinct === null) {
+        if (!numeric.addPlainBytes(buf, s, e)) numeric.addOther(asciiString(buf, s, e));
+      } else if (e - s <= SHORT_VALUE && !distinct.sketching) {
+        // A short value is counted through the distinct counter's cache, without hashing it.
+        distinct.addBytes(buf, s, e);
+        if (!numeric.addPlainBytes(buf, s, e)) numeric.addOther(asciiString(buf, s, e));
+      } else {
+        // One walk over the bytes hashes the value and reads it as a plain decimal.
+        scanField(buf, s, e, dot, scan);
+        distinct.addHashed(buf, s, e, scan.hash);
+        if (scan.plain) numeric.addScanned(scan, buf, s, e);
+        else numeric.addOther(asciiString(buf, s, e));
+      }
+    }
+    this.tally(b.length, empty, length);
+  }
+
+  private tally(rows: number, empty: number, length: number): void {
+    this.empty += empty;
+    this.values += rows - empty;
+    this.totalLength += length;
+  }
+
+  /** restAscii() for a batch with other bytes than ASCII: each value as its string. */
+  private restStrings(b: ByteBatch, c: number, timeMode: boolean): void {
+    for (let i = 0; i < b.length; i++) {
+      const text = byteFieldString(b, c, i);
+      if (isBlank(text)) {
+        this.empty++;
+        continue;
+      }
+      this.values++;
+      this.totalLength += text.length;
+      if (!timeMode) this.distinct.add(text);
+      if (!this.numbersStopped) this.numeric!.add(text);
+    }
   }
 
   /**
@@ -84,6 +216,30 @@ export class ProfileColumn {
     this.numeric = numeric;
     this.numbersStopped = numeric.s.numbers < 0.5 * head.length;
   }
+}
+
+/** Rows `from` on of byte column `c` of a batch, as a batch of their own (views, no copy). */
+function sliceBatch(b: ByteBatch, c: number, from: number): ByteBatch {
+  const cut = <T extends Int32Array | Uint8Array>(a: T, k: number): T => (k === c ? (a.subarray(from) as T) : a);
+  return {
+    length: b.length - from,
+    lines: Float64Array.from({ length: b.length - from }, (_, i) => b.lines[from + i]!),
+    buf: b.buf,
+    side: b.side,
+    ascii: b.ascii,
+    starts: b.starts.map(cut),
+    ends: b.ends.map(cut),
+    decoded: b.decoded.map(cut),
+    values: b.values,
+  };
+}
+
+function isBlankBytes(b: Uint8Array, s: number, e: number): boolean {
+  for (let i = s; i < e; i++) {
+    const c = b[i]!;
+    if (c !== 32 && c !== 9) return false;
+  }
+  return true;
 }
 
 function isBlank(s: string): boolean {

@@ -16,6 +16,16 @@ export function hashString(s: string): number {
   return mix32(h);
 }
 
+/** hashString of the ASCII bytes b[start, end), read straight from the bytes (for ASCII, byte k is char code k). */
+export function hashBytes(b: Uint8Array, start: number, end: number): number {
+  let h = 0x811c9dc5;
+  for (let i = start; i < end; i++) {
+    h ^= b[i]!;
+    h = Math.imul(h, 0x01000193);
+  }
+  return mix32(h);
+}
+
 const f64 = new Float64Array(1);
 const u32 = new Uint32Array(f64.buffer);
 

@@ -2,6 +2,8 @@
 // zero-padded or of one fixed width, their range and decimals, and whether integers run one by one.
 import type { NumberParser, ParsedNumber } from '../numbers/types.js';
 import { emptyParsedNumber } from '../numbers/parse.js';
+import { asciiString } from '../table/ascii.js';
+import type { FieldScan } from './byte-scan.js';
 
 export interface NumericSummary {
   /** Non-empty values read as numbers. */
@@ -32,7 +34,8 @@ export class NumericEvidence {
   private readonly out: ParsedNumber = emptyParsedNumber();
   private prev = NaN;
 
-  private readonly dotIsDecimal: boolean;
+  /** True when a point marks decimals in this column's number format (the plain-decimal scan applies). */
+  readonly dotIsDecimal: boolean;
 
   constructor(private readonly parser: NumberParser) {
     this.dotIsDecimal = parser.format.decimal === '.' && !parser.format.unresolved;
@@ -40,7 +43,11 @@ export class NumericEvidence {
 
   /** Reads one non-empty value; returns true when it is a number. */
   add(text: string): boolean {
-    if (this.addPlain(text)) return true;
+    return this.addPlain(text) || this.addOther(text);
+  }
+
+  /** add() for a value that is not a plain decimal (the caller's addPlainBytes said false). */
+  addOther(text: string): boolean {
     const s = this.s;
     if (this.parser.parse(text, this.out) !== 'ok') {
       this.prev = NaN;
@@ -118,6 +125,77 @@ export class NumericEvidence {
       s.maxDecimals = decimals;
     }
     return true;
+  }
+
+  /**
+   * addPlain() on the ASCII bytes buf[start, end) of a value: the same evidence, read from the bytes.
+   * Returns false, touching nothing, when the value is not a plain decimal (then call addOther(text)).
+   */
+  addPlainBytes(buf: Uint8Array, start: number, end: number): boolean {
+    let i = start;
+    let c = start < end ? buf[start]! : 0;
+    const negative = c === 45;
+    if (negative || c === 43) i++;
+    const intStart = i;
+    let value = 0;
+    while (i < end && (c = buf[i]!) >= 48 && c <= 57) {
+      value = value * 10 + (c - 48);
+      i++;
+    }
+    let digits = i - intStart;
+    let decimals = -1;
+    if (i < end && c === 46) {
+      if (!this.dotIsDecimal) return false;
+      const f = ++i;
+      while (i < end && (c = buf[i]!) >= 48 && c <= 57) {
+        value = value * 10 + (c - 48);
+        i++;
+      }
+      decimals = i - f;
+      digits += decimals;
+    }
+    if (i !== end || digits === 0 || digits > 15) return false;
+    let x = decimals > 0 ? value / POW10[decimals]! : value;
+    if (negative && x !== 0) x = -x;
+    this.record(x);
+    const s = this.s;
+    const n = end - start;
+    if (decimals < 0 && intStart === start) {
+      s.digitOnly++;
+      if (n < s.minWidth) s.minWidth = n;
+      if (n > s.maxWidth) s.maxWidth = n;
+      if (n > 1 && buf[start] === 48) {
+        s.zeroPadded++;
+        if (s.zeroPaddedExample === null) s.zeroPaddedExample = asciiString(buf, start, end);
+      }
+    } else if (decimals >= 0 && decimals > s.maxDecimals) {
+      s.maxDecimals = decimals;
+    }
+    return true;
+  }
+
+  /**
+   * addPlainBytes() of a value scanField found plain (`scan.plain`), from the scan's digits: the same evidence.
+   * `buf[start, end)` are the value's bytes.
+   */
+  addScanned(scan: FieldScan, buf: Uint8Array, start: number, end: number): void {
+    const decimals = scan.decimals;
+    let x = decimals > 0 ? scan.digits / POW10[decimals]! : scan.digits;
+    if (scan.negative && x !== 0) x = -x;
+    this.record(x);
+    const s = this.s;
+    const n = end - start;
+    if (decimals < 0 && !scan.signed) {
+      s.digitOnly++;
+      if (n < s.minWidth) s.minWidth = n;
+      if (n > s.maxWidth) s.maxWidth = n;
+      if (n > 1 && buf[start] === 48) {
+        s.zeroPadded++;
+        if (s.zeroPaddedExample === null) s.zeroPaddedExample = asciiString(buf, start, end);
+      }
+    } else if (decimals >= 0 && decimals > s.maxDecimals) {
+      s.maxDecimals = decimals;
+    }
   }
 
   private record(x: number): void {

@@ -1,7 +1,9 @@
 // An exact table of distinct strings with a count per string, for the profile's hot loop. A string is hashed
 // once (the 32-bit hash of hll.ts, which the sketch then reuses) and found by open addressing with linear
 // probing; equality is checked on the string itself, so the table is exact whatever the hash collisions.
-// It costs a few typed-array reads per value instead of a Map look-up and update.
+// It costs a few typed-array reads per value instead of a Map look-up and update. ASCII fields can be added
+// as bytes: they are compared byte by byte with the kept strings and made into a string only when new.
+import { asciiString } from '../table/ascii.js';
 
 /** Distinct strings and their rows, in order of first appearance. */
 export class StringTable {
@@ -39,6 +41,67 @@ export class StringTable {
     if (e === 0) return false;
     this.rows[e - 1] += 1;
     return true;
+  }
+
+  /**
+   * Adds one row of the ASCII bytes buf[start, end) (with `hash`, their hashBytes — equal to the hashString
+   * of the same text) and returns true when they are a new key. The string is made only for a new key.
+   */
+  addBytes(buf: Uint8Array, start: number, end: number, hash: number): boolean {
+    const n = this.keys.length;
+    return this.addBytesEntry(buf, start, end, hash) === n;
+  }
+
+  /** addBytes() returning the key's entry index (its place in `keys`). */
+  addBytesEntry(buf: Uint8Array, start: number, end: number, hash: number): number {
+    const i = this.probeBytes(buf, start, end, hash);
+    const e = this.slots[i]!;
+    if (e !== 0) {
+      this.rows[e - 1] += 1;
+      return e - 1;
+    }
+    const n = this.keys.length;
+    if (n === this.rows.length) this.growEntries();
+    this.keys.push(asciiString(buf, start, end));
+    this.rows[n] = 1;
+    this.hashes[n] = hash;
+    this.slots[i] = n + 1;
+    if (2 * (n + 1) > this.slots.length) this.rehash();
+    return n;
+  }
+
+  /** addIfPresent for ASCII bytes: the entry index counted, or -1 when the key is not in the table. */
+  addBytesIfPresent(buf: Uint8Array, start: number, end: number, hash: number): number {
+    const e = this.slots[this.probeBytes(buf, start, end, hash)]!;
+    if (e === 0) return -1;
+    this.rows[e - 1] += 1;
+    return e - 1;
+  }
+
+  /** Counts one more row of entry `e` (an index addBytesEntry returned). */
+  count(e: number): void {
+    this.rows[e] += 1;
+  }
+
+  /** probe() for ASCII bytes: a key matches when its char codes are the bytes. */
+  private probeBytes(buf: Uint8Array, start: number, end: number, hash: number): number {
+    const mask = this.slots.length - 1;
+    const h = hash | 0;
+    const n = end - start;
+    let i = h & mask;
+    for (;;) {
+      const e = this.slots[i]!;
+      if (e === 0) return i;
+      if (this.hashes[e - 1] === h) {
+        const k = this.keys[e - 1]!;
+        if (k.length === n) {
+          let j = 0;
+          while (j < n && k.charCodeAt(j) === buf[start + j]) j++;
+          if (j === n) return i;
+        }
+      }
+      i = (i + 1) & mask;
+    }
   }
 
   /** The slot holding `key`, or the empty slot where it would go. */

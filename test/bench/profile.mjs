@@ -1,8 +1,9 @@
 // Profile and grain throughput: generates a seeded 1M-row visits-like table into the system's temporary
 // folder (visit_id, visit_time UTC, visit_date, clinic, patient_age, wait_minutes, triage, area_code), then
 // times profileTable (every column, one pass) and detectGrain (every column) on it, printing rows/s, MB/s
-// (by wall and by CPU time) and the peak resident set size of this process.
-//   node test/bench/profile.mjs [rows=1000000] [--keep]
+// (by wall and by CPU time) and the peak resident set size of this process. `--file F` times an existing
+// CSV instead; `--strings` also times profile's string path (`bytes: false`) and checks the two reports agree.
+//   node test/bench/profile.mjs [rows=1000000] [--keep] [--file F.csv] [--strings]
 import { createWriteStream, mkdtempSync, rmSync, statSync } from 'node:fs';
 import { once } from 'node:events';
 import { tmpdir } from 'node:os';
@@ -12,10 +13,12 @@ import { tsImport } from 'tsx/esm/api';
 const { profileTable } = await tsImport('../../src/profile/index.ts', import.meta.url);
 const { detectGrain } = await tsImport('../../src/grain/index.ts', import.meta.url);
 
-const rows = Number(process.argv.find((a) => /^\d+$/.test(a)) ?? 1_000_000);
-const keep = process.argv.includes('--keep');
-const dir = mkdtempSync(join(tmpdir(), 'quern-bench-profile-'));
-const file = join(dir, 'visits-1m.csv');
+const given = process.argv.includes('--file') ? process.argv[process.argv.indexOf('--file') + 1] : undefined;
+let rows = Number(process.argv.find((a) => /^\d+$/.test(a)) ?? 1_000_000);
+const keep = process.argv.includes('--keep') || given !== undefined;
+const strings = process.argv.includes('--strings');
+const dir = given === undefined ? mkdtempSync(join(tmpdir(), 'quern-bench-profile-')) : '';
+const file = given ?? join(dir, 'visits-1m.csv');
 
 async function generate(path, n) {
   const out = createWriteStream(path);
@@ -54,10 +57,15 @@ async function time(label, f) {
   return result;
 }
 
-await generate(file, rows);
+if (given === undefined) await generate(file, rows);
+else rows = (await profileTable(file, { table: { batchSize: 65_536 } })).rows; // also warms the page cache
 console.log(`file: ${rows.toLocaleString('en-US')} rows, ${(statSync(file).size / 1e6).toFixed(1)} MB (${file})`);
 const p = await time('profileTable', () => profileTable(file));
 console.log(`  shape ${p.shape.kind}; roles ${p.columns.map((c) => `${c.name}=${c.role}`).join(', ')}`);
+if (strings) {
+  const q = await time('  string path', () => profileTable(file, { bytes: false }));
+  console.log(`  string path report ${JSON.stringify(q) === JSON.stringify(p) ? 'identical' : 'DIFFERENT'}`);
+}
 const g = await time('detectGrain', () => detectGrain(file));
 console.log(`  grains ${g.columns.map((c) => `${c.name}=${c.grain?.unit}`).join(', ')}`);
 console.log(`peak RSS ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB`);

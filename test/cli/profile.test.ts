@@ -2,6 +2,7 @@
 // visit_id unique sequential integers, area_code zero-padded 5-digit codes, triage low/medium/high,
 // weekly-cases an aggregated table).
 import { describe, expect, it, vi } from 'vitest';
+import { profileTable } from '../../src/index.js';
 import { runCli } from '../helpers/cli.js';
 
 // Whole-file reads and zone searches: generous time on a busy machine (speed lives in bench/profile.mjs).
@@ -37,6 +38,35 @@ describe('quern profile', () => {
     expect(label).toMatchObject({ level: 'ordinal', role: 'range-label' });
     expect(label.order[0]).toBe('0-4');
     expect(label.order[label.order.length - 1]).toBe('85+');
+  });
+
+  it.each(['fixtures/visits.csv', 'fixtures/weekly-cases.csv', 'fixtures/fridge-temps.csv', 'fixtures/reporting-periods.csv'])(
+    '--json on %s (read as bytes) is the report the string path and csv-parse give',
+    async (file) => {
+      // Differential: the CLI's default byte path against the library's string path (`bytes: false`) and the
+      // reference engine (csv-parse); the file name is the only field that differs in form.
+      const out = JSON.parse((await runCli(['profile', file, '--json'])).stdout);
+      const strings = JSON.parse(JSON.stringify(await profileTable(file, { bytes: false })));
+      const reference = JSON.parse(JSON.stringify(await profileTable(file, { table: { engine: 'reference' } })));
+      expect(out).toEqual(strings);
+      expect(out).toEqual(reference);
+    },
+  );
+
+  it.each(['0', '-1', '1.5', 'two'])('--threads %s is a usage error (exit 2) with a hint', async (n) => {
+    // Exit statuses of cli/exit.ts (team brief): 2 is misuse.
+    const r = await runCli(['profile', 'fixtures/visits.csv', '--threads', n]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/^quern: --threads "[^"]*" is not a whole number from 1 to 64/);
+    expect(r.stderr).toContain('hint:');
+  });
+
+  it('--threads 1 and --threads 2 print the same JSON', async () => {
+    // Differential: a file under the split threshold reads in one thread either way; the option must not change it.
+    const one = await runCli(['profile', 'fixtures/weekly-cases.csv', '--json', '--threads', '1']);
+    const two = await runCli(['profile', 'fixtures/weekly-cases.csv', '--json', '--threads', '2']);
+    expect(two.status).toBe(0);
+    expect(two.stdout).toBe(one.stdout);
   });
 
   it('a missing file exits 3 with one line and a hint', async () => {
