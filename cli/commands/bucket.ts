@@ -1,18 +1,19 @@
 // `quern bucket`: quantities such as ages into ordered, labelled ranges.
 // Options → BucketRunOptions → bucketTable() → BucketRunResult → rows (CSV) and a summary (text or JSON).
 import { createWriteStream } from 'node:fs';
-import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { mkdtemp, open as openFile, readFile, rm, stat, writeFile, type FileHandle } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import { Command, Option } from 'commander';
 import {
-  BIN_RULES, BUCKET_SCHEMES, QuernError, bucketSpecOf, bucketSummaryJson, bucketSummaryText, bucketTable, csvRow,
+  BIN_RULES, BUCKET_SCHEMES, QuernError, bucketFile, bucketSpecOf, bucketSummaryJson, bucketSummaryText, bucketTableCsv,
   openOutput, openTable, renderBucketReport, schemesText,
 } from '../../src/index.js';
 import { REPORT_HELP, writeReport } from '../report-output.js';
-import type { BinRule, BucketPlan, BucketSpec, BucketRunOptions, BucketSink, NumberFormat, OutputTarget, QuantileType } from '../../src/index.js';
+import type { BinRule, BucketPlan, BucketSpec, BucketRunOptions, BucketRunResult, CsvRowsOutput, NumberFormat, OutputTarget, QuantileType, TableOptions } from '../../src/index.js';
 import type { CommandContext } from '../program.js';
+import { parseThreads, THREADS_HELP } from '../threads.js';
 import { useColor } from '../io.js';
 
 const EXAMPLES = `
@@ -37,6 +38,9 @@ Rules:
   Numbers: thousands separators and decimal commas are read when the column shows which is which; a lone
   1,234 is never guessed (give --decimal). NaN, Infinity and unreadable values are counted as invalid.
   Methods that need every value read the input twice (standard input is first copied to a temporary file).
+  Ckmeans natural breaks are exact (Wang & Song 2011), never from a sample: they are computed on the distinct
+  values weighted by their counts (equal values always share a range), up to 2,000,000 distinct values and
+  20,000,000 bins x distinct values; beyond that quern stops and says so (use quantiles or round the values).
   Cells a spreadsheet would run as formulas are neutralised (OWASP); --no-neutralise turns this off for
   trusted pipelines.
 `;
@@ -47,7 +51,7 @@ interface BucketFlags {
   spec?: string; specOut?: string; closed: 'left' | 'right'; labels: 'auto' | 'integer' | 'interval';
   decimal?: '.' | ','; group?: string; labelColumn?: string; indexColumn?: string;
   out: string; summary?: boolean; json?: boolean; quiet?: boolean; delimiter?: string; neutralise: boolean;
-  report?: string;
+  report?: string; threads?: string;
 }
 
 export function registerBucket(program: Command, ctx: CommandContext): void {
@@ -80,6 +84,7 @@ export function registerBucket(program: Command, ctx: CommandContext): void {
     .option('-q, --quiet', 'no summary')
     .option('--delimiter <char>', 'input field delimiter (default: sniffed)')
     .option('--no-neutralise', 'do not neutralise formula-like cells in CSV output (trusted pipelines only)')
+    .option('--threads <n>', `with --summary and fixed ranges: ${THREADS_HELP}`)
     .option('--report <file.html>', REPORT_HELP)
     .addHelpText('after', EXAMPLES)
     .action(async (file: string | undefined, flags: BucketFlags) => {
@@ -88,8 +93,8 @@ export function registerBucket(program: Command, ctx: CommandContext): void {
       if (flags.value === undefined) throw new QuernError('E_USAGE', 'quern bucket needs --value COLUMN');
       const options = runOptions(flags, await planOf(flags, ctx));
       await withInput(file, ctx, async (path) => {
-        const open = () => openTable(path, { cwd: ctx.io.cwd, ...(flags.delimiter ? { delimiter: flags.delimiter } : {}) });
-        await runBucket(file, open, options, flags, ctx);
+        const table = { cwd: ctx.io.cwd, ...(flags.delimiter ? { delimiter: flags.delimiter } : {}) };
+        await runBucket(file, { path, table }, options, flags, ctx);
       });
     });
 }
@@ -163,35 +168,68 @@ async function withInput(file: string, ctx: CommandContext, body: (path: string)
   }
 }
 
-function rowSink(out: OutputTarget, f: BucketFlags): BucketSink {
-  const csv = { neutraliseFormulas: f.neutralise };
-  const v = f.value!;
-  return {
-    async start(header) { await out.write(csvRow([...header, f.labelColumn ?? `${v}_range`, f.indexColumn ?? `${v}_range_index`], csv)); },
-    async batch(batch, labels, indices) {
-      let chunk = '';
-      const row: string[] = new Array(batch.values.length + 2);
-      for (let i = 0; i < batch.length; i++) {
-        for (let c = 0; c < batch.values.length; c++) row[c] = batch.values[c]![i]!;
-        row[batch.values.length] = labels[i]!;
-        row[batch.values.length + 1] = indices[i]!;
-        chunk += csvRow(row, csv);
-      }
-      await out.write(chunk);
-    },
-  };
+/** Rows as CSV bytes to an output target (which takes text: chunks end on whole rows, so whole UTF-8 characters). */
+function targetRows(out: OutputTarget, f: BucketFlags): CsvRowsOutput {
+  return { ...rowNames(f), write: (chunk) => out.write(Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength).toString('utf8')) };
 }
 
-async function runBucket(file: string, open: () => ReturnType<typeof openTable>, options: BucketRunOptions, f: BucketFlags, ctx: CommandContext): Promise<void> {
-  const out = f.summary ? null : await openOutput(f.out, { stdout: ctx.io.stdout, cwd: ctx.io.cwd });
-  let result;
+function rowNames(f: BucketFlags): Omit<CsvRowsOutput, 'write'> {
+  return { neutraliseFormulas: f.neutralise, ...(f.labelColumn !== undefined ? { labelColumn: f.labelColumn } : {}), ...(f.indexColumn !== undefined ? { indexColumn: f.indexColumn } : {}) };
+}
+
+/**
+ * A target that is not a regular file (a character device such as /dev/null, a FIFO) is written in place:
+ * renaming a temporary file over it, as a file output does, would replace the device with a file.
+ */
+async function deviceTarget(path: string, ctx: CommandContext): Promise<FileHandle | null> {
+  if (path === '-') return null;
+  const full = resolve(ctx.io.cwd, path);
   try {
-    result = await bucketTable(open, options, out === null ? undefined : rowSink(out, f));
-    await out?.commit();
+    const st = await stat(full);
+    if (st.isFile() || st.isDirectory()) return null;
+    return await openFile(full, 'w');
   } catch (e) {
-    await out?.abort();
+    if ((e as NodeJS.ErrnoException).code === 'ENOENT') return null;
+    throw new QuernError('E_OUTPUT', `${path}: cannot be written (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+  }
+}
+
+async function writeAll(handle: FileHandle, path: string, chunk: Uint8Array): Promise<void> {
+  try {
+    for (let at = 0; at < chunk.byteLength;) at += (await handle.write(chunk, at, chunk.byteLength - at)).bytesWritten;
+  } catch (e) {
+    throw new QuernError('E_OUTPUT', `${path}: cannot be written (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+  }
+}
+
+/** The file to read (standard input already copied to a file) and how to open it. */
+interface Input { path: string; table: TableOptions }
+
+/** Buckets the rows into the output the flags name; null output with --summary. */
+async function bucketRows(input: Input, options: BucketRunOptions, f: BucketFlags, ctx: CommandContext): Promise<BucketRunResult> {
+  const open = () => openTable(input.path, input.table);
+  if (f.summary) return bucketFile(input.path, options, input.table, { threads: parseThreads(f.threads) });
+  const device = await deviceTarget(f.out, ctx);
+  if (device !== null) {
+    try {
+      return await bucketTableCsv(open, options, { ...rowNames(f), write: (chunk) => writeAll(device, f.out, chunk) });
+    } finally {
+      await device.close();
+    }
+  }
+  const out = await openOutput(f.out, { stdout: ctx.io.stdout, cwd: ctx.io.cwd });
+  try {
+    const result = await bucketTableCsv(open, options, targetRows(out, f));
+    await out.commit();
+    return result;
+  } catch (e) {
+    await out.abort();
     throw e;
   }
+}
+
+async function runBucket(file: string, input: Input, options: BucketRunOptions, f: BucketFlags, ctx: CommandContext): Promise<void> {
+  const result = await bucketRows(input, options, f, ctx);
   result.summary.file = file;
   if (f.specOut !== undefined) {
     try { await writeFile(resolve(ctx.io.cwd, f.specOut), `${JSON.stringify(bucketSpecOf(result.set, options.value), null, 2)}\n`); } catch (e) {
@@ -200,6 +238,6 @@ async function runBucket(file: string, open: () => ReturnType<typeof openTable>,
   }
   await writeReport(f.report, () => renderBucketReport(result), ctx.io);
   if (f.quiet) return;
-  const stream = out !== null && f.out === '-' ? ctx.io.stderr : ctx.io.stdout;
+  const stream = !f.summary && f.out === '-' ? ctx.io.stderr : ctx.io.stdout;
   stream.write(f.json ? bucketSummaryJson(result) : bucketSummaryText(result, { color: useColor(ctx.io, stream), width: Math.min(stream.columns ?? 80, 100) }));
 }

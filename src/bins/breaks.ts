@@ -1,8 +1,8 @@
 // Edges computed from the data: equal width on round numbers (d3-array nice/ticks), quantiles
-// (Hyndman & Fan 1996), natural breaks by Ckmeans (Wang & Song 2011, via simple-statistics) and bin
+// (Hyndman & Fan 1996), natural breaks by Ckmeans (Wang & Song 2011, weighted on distinct values) and bin
 // counts from Sturges (1926), Scott (1979) or Freedman–Diaconis (1981) (d3-array thresholds).
 import { nice, ticks, thresholdFreedmanDiaconis, thresholdScott, thresholdSturges } from 'd3-array';
-import { ckmeans } from 'simple-statistics';
+import { ckmeansWeighted, countDistinctSorted, distinctWithCounts } from './ckmeans.js';
 import { QuernError } from '../errors.js';
 import { quantileOfSorted, type QuantileType } from './quantile.js';
 import type { ClosedSide } from './types.js';
@@ -10,8 +10,10 @@ import type { ClosedSide } from './types.js';
 export type BinRule = 'sturges' | 'scott' | 'freedman-diaconis';
 export const BIN_RULES: readonly BinRule[] = ['sturges', 'scott', 'freedman-diaconis'];
 
-/** Largest input Ckmeans runs on: its dynamic programme holds 2 × bins × n numbers. */
+/** Most distinct values Ckmeans runs on (its tables hold about 40 bytes a distinct value, plus 4 a cell). */
 export const CKMEANS_MAX_VALUES = 2_000_000;
+/** Most cells (bins × distinct values) of Ckmeans's backtrack table (4 bytes each: 80 MB). */
+export const CKMEANS_MAX_CELLS = 20_000_000;
 
 /**
  * `bins` equal-width edges spanning [min, max]. With `round` (default) the span is widened to round
@@ -38,23 +40,27 @@ export function quantileEdges(sorted: Float64Array, bins: number, type: Quantile
 export interface Extent { min: number; max: number }
 
 /**
- * Clusters of sorted data by Ckmeans (optimal 1-D k-means, Wang & Song, The R Journal 3(2):29–33, 2011,
- * as simple-statistics computes it), as their extents. Clusters that share a value (simple-statistics
- * may split a run of ties) are joined, and `joined` counts them.
+ * Clusters of sorted data by Ckmeans (optimal 1-D k-means, Wang & Song, The R Journal 3(2):29–33, 2011),
+ * as their extents. It runs on the distinct values weighted by their counts, which is exact for the whole
+ * data (see ckmeans.ts) and keeps equal values together; `joined` (clusters that shared a value and were
+ * joined) is therefore 0, kept for callers of earlier versions. Throws QuernError 'E_DATA' beyond
+ * CKMEANS_MAX_VALUES distinct values or CKMEANS_MAX_CELLS cells.
  */
 export function ckmeansExtents(sorted: Float64Array, bins: number): { extents: Extent[]; joined: number } {
   if (sorted.length === 0) return { extents: [], joined: 0 };
-  if (sorted.length > CKMEANS_MAX_VALUES) {
-    throw new QuernError('E_DATA', `Ckmeans needs memory for ${bins} × ${sorted.length} values, more than the limit of ${CKMEANS_MAX_VALUES} values`, 'use --method quantile, or bucket a sample');
+  const m = countDistinctSorted(sorted);
+  const k = Math.min(bins, m);
+  if (m > CKMEANS_MAX_VALUES || k * m > CKMEANS_MAX_CELLS) {
+    throw new QuernError('E_DATA', `Ckmeans needs memory for ${k} × ${m} distinct values, more than the limit of ${m > CKMEANS_MAX_VALUES ? `${CKMEANS_MAX_VALUES} distinct values` : `${CKMEANS_MAX_CELLS} cells`}`, 'use --method quantile, fewer --bins, or round the values (fewer distinct values)');
   }
+  const { values, counts } = distinctWithCounts(sorted);
+  const starts = ckmeansWeighted(values, counts, k);
   const extents: Extent[] = [];
-  let joined = 0;
-  for (const c of ckmeans(Array.from(sorted), Math.min(bins, sorted.length))) {
-    const last = extents[extents.length - 1];
-    if (last !== undefined && c[0]! <= last.max) { last.max = Math.max(last.max, c[c.length - 1]!); joined++; }
-    else extents.push({ min: c[0]!, max: c[c.length - 1]! });
+  for (let c = 0; c < starts.length; c++) {
+    const last = c + 1 < starts.length ? starts[c + 1]! - 1 : m - 1;
+    extents.push({ min: values[starts[c]!]!, max: values[last]! });
   }
-  return { extents, joined };
+  return { extents, joined: 0 };
 }
 
 /** The number of bins a rule suggests, as d3-array 3.2.5 computes it (REFERENCES §9). */

@@ -5,6 +5,8 @@ import { emptyParsedNumber, inferNumberFormat, makeNumberParser, type NumberForm
 import { buildBuckets, planNeedsData, type BucketPlan, type BuildOptions } from './build.js';
 import { BucketTally, type BucketSummary } from './tally.js';
 import { NumberBuffer } from './values.js';
+import { assignBytes, collectBytes, type AssignSpec } from './byte-pass.js';
+import type { CsvRowsOutput } from './csv-rows.js';
 import type { BucketSet } from './types.js';
 
 export interface BucketRunOptions extends BuildOptions {
@@ -102,35 +104,68 @@ async function assign(reader: TableReader, o: BucketRunOptions, makeSet: (intege
   return { set, summary: tally.summary(reader.file, o.value, s.rowsRead, s.rejectedByReason), nf };
 }
 
+/** The bucket set maker of a plan: fixed plans at once, data-driven ones after pass one. */
+type SetMaker = (integers: boolean) => BucketSet;
+
+/** Pass one for data-driven plans (over bytes, or strings for the reference path). */
+async function planSets(open: () => Promise<TableReader>, options: BucketRunOptions, strings: boolean): Promise<{ makeSet: SetMaker; given: Partial<NumberFormat> | undefined; inferred: NumberFormatInference | null; passes: number }> {
+  if (!planNeedsData(options.plan)) {
+    // fixed edges: whole-number labels when the first batch holds whole numbers (unless options.discrete says)
+    const makeSet: SetMaker = (integers) => buildBuckets(options.plan, { ...options, discrete: options.discrete ?? (integers ? undefined : false) });
+    return { makeSet, given: options.numberFormat, inferred: null, passes: 1 };
+  }
+  const first = await open();
+  let data;
+  try {
+    if (strings) data = await collect(first, options);
+    else { const d = await collectBytes(first, options.value, options.numberFormat); data = { sorted: d.sorted, integers: d.integers, nf: { format: d.reading.format, inferred: d.reading.inferred } }; }
+  } finally { first.close(); }
+  const set = buildBuckets(options.plan, options, { sorted: data.sorted, integers: data.integers });
+  // the second pass reads numbers exactly as the first did
+  return { makeSet: () => set, given: data.nf.format, inferred: data.nf.inferred, passes: 2 };
+}
+
 /**
  * Buckets the column `options.value` of a table. `open` is called once, or twice when the method needs
- * every value first (quantiles, Ckmeans, bin-count rules, equal width): the numbers are then held in a
- * Float64Array (8 bytes a value), never as row objects. Every row read is accounted for in the summary.
+ * every value first (quantiles, Ckmeans, bin-count rules, equal width): the numbers are then held in
+ * Float64Arrays (8 bytes a value), never as row objects. Every row read is accounted for in the summary.
+ * Without a sink the values are read and parsed as bytes; with a sink (rows as strings) the string path
+ * runs, which is the reference the byte path is tested against.
  */
 export async function bucketTable(open: () => Promise<TableReader>, options: BucketRunOptions, sink?: BucketSink): Promise<BucketRunResult> {
-  let makeSet: (integers: boolean) => BucketSet;
-  let given = options.numberFormat;
-  let inferred: NumberFormatInference | null = null;
-  let passes = 1;
-  if (planNeedsData(options.plan)) {
-    const first = await open();
-    let data;
-    try { data = await collect(first, options); } finally { first.close(); }
-    const set = buildBuckets(options.plan, options, { sorted: data.sorted, integers: data.integers });
-    makeSet = () => set;
-    given = data.nf.format; // the second pass reads numbers exactly as the first did
-    inferred = data.nf.inferred;
-    passes = 2;
-  } else {
-    // fixed edges: whole-number labels when the first batch holds whole numbers (unless options.discrete says)
-    makeSet = (integers) => buildBuckets(options.plan, { ...options, discrete: options.discrete ?? (integers ? undefined : false) });
-  }
+  const plan = await planSets(open, options, sink !== undefined);
   const reader = await open();
   try {
-    const r = await assign(reader, options, makeSet, given, sink);
-    const format = r.nf?.format ?? makeNumberParser(given).format;
-    return { summary: r.summary, set: r.set, numberFormat: { format, inferred: inferred ?? r.nf?.inferred ?? null }, passes };
+    if (sink === undefined) return fromBytes(reader, options, plan, await assignBytes(reader, byteSpec(options, plan)));
+    const r = await assign(reader, options, plan.makeSet, plan.given, sink);
+    const format = r.nf?.format ?? makeNumberParser(plan.given).format;
+    return { summary: r.summary, set: r.set, numberFormat: { format, inferred: plan.inferred ?? r.nf?.inferred ?? null }, passes: plan.passes };
   } finally {
     reader.close();
   }
+}
+
+/**
+ * Buckets the column `options.value` and writes every row with its range label and order index as CSV
+ * (the header, then the rows, as csvRow writes them: RFC 4180 quoting, formula cells neutralised unless
+ * `output.neutraliseFormulas` is false). Values are read and rows built as bytes; see bucketTable.
+ */
+export async function bucketTableCsv(open: () => Promise<TableReader>, options: BucketRunOptions, output: CsvRowsOutput): Promise<BucketRunResult> {
+  const plan = await planSets(open, options, false);
+  const reader = await open();
+  try {
+    return fromBytes(reader, options, plan, await assignBytes(reader, { ...byteSpec(options, plan), output }));
+  } finally {
+    reader.close();
+  }
+}
+
+function byteSpec(options: BucketRunOptions, plan: { makeSet: SetMaker; given: Partial<NumberFormat> | undefined }): AssignSpec {
+  return { value: options.value, given: plan.given, makeSet: plan.makeSet, maxExamples: options.maxExamples ?? 5 };
+}
+
+function fromBytes(reader: TableReader, options: BucketRunOptions, plan: { inferred: NumberFormatInference | null; passes: number }, r: Awaited<ReturnType<typeof assignBytes>>): BucketRunResult {
+  const s = reader.summary();
+  const summary = r.tally.summary(reader.file, options.value, s.rowsRead, s.rejectedByReason);
+  return { summary, set: r.set, numberFormat: { format: r.reading.format, inferred: plan.inferred ?? r.reading.inferred }, passes: plan.passes };
 }

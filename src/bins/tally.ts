@@ -45,6 +45,18 @@ export interface BucketSummary {
 
 const outcome = (): Outcome => ({ count: 0, examples: [] });
 
+/** A tally as plain data: what a range task hands back (lines relative to its range). */
+export interface TallyPartial {
+  counts: number[];
+  below: Outcome; above: Outcome; between: Outcome;
+  empty: Outcome & { byReason: Record<string, number> };
+  invalid: Outcome & { byReason: Record<string, number> };
+  nonInteger: Outcome; percent: Outcome;
+}
+
+/** tryCount's answer when the value needs `record` (outside the buckets, or a note to take). */
+export const NOT_COUNTED = -9;
+
 /** Accumulates counts for one bucket set; `record` returns the bucket index or a negative outcome. */
 export class BucketTally {
   private readonly bucketer: Bucketer;
@@ -67,6 +79,19 @@ export class BucketTally {
     if (o.examples.length < this.maxExamples) o.examples.push({ line, value: value.length > 80 ? `${value.slice(0, 79)}…` : value });
   }
 
+  /**
+   * The hot path for a parsed number without a percent sign: counts it and returns its bucket when it
+   * lands in one and needs no note; otherwise returns NOT_COUNTED and the caller calls `record`.
+   */
+  tryCount(x: number): number {
+    const k = this.bucketer.assign(x);
+    if (k >= 0 && (!this.set.discrete || Number.isInteger(x))) {
+      this.counts[k]!++;
+      return k;
+    }
+    return NOT_COUNTED;
+  }
+
   /** Records one parsed value of the row starting on `line`. */
   record(line: number, text: string, parsed: ParsedNumber): number {
     if (parsed.status === 'empty') {
@@ -86,6 +111,28 @@ export class BucketTally {
       if (this.set.discrete && !Number.isInteger(parsed.value)) this.note(this.nonInteger, line, text);
     } else this.note(k === BELOW ? this.below : k === ABOVE ? this.above : this.between, line, text);
     return k;
+  }
+
+  /** The counts as plain data (structured-clonable), for a range read on another thread. */
+  partial(): TallyPartial {
+    const { below, above, between, empty, invalid, nonInteger, percent } = this;
+    return { counts: Array.from(this.counts), below, above, between, empty, invalid, nonInteger, percent };
+  }
+
+  /** Adds the partial of the next range in file order; its lines are shifted by `base` (lines before the range). */
+  absorb(p: TallyPartial, base: number): void {
+    p.counts.forEach((c, k) => { this.counts[k]! += c; });
+    const add = (into: Outcome, from: Outcome): void => {
+      into.count += from.count;
+      for (const ex of from.examples) if (into.examples.length < this.maxExamples) into.examples.push({ line: ex.line + base, value: ex.value });
+    };
+    const reasons = (into: Record<string, number>, from: Record<string, number>): void => {
+      for (const [r, n] of Object.entries(from)) into[r] = (into[r] ?? 0) + n;
+    };
+    add(this.below, p.below); add(this.above, p.above); add(this.between, p.between);
+    add(this.empty, p.empty); reasons(this.empty.byReason, p.empty.byReason);
+    add(this.invalid, p.invalid); reasons(this.invalid.byReason, p.invalid.byReason);
+    add(this.nonInteger, p.nonInteger); add(this.percent, p.percent);
   }
 
   /** The summary, given the table reader's row accounting. */

@@ -1,0 +1,42 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { isFormulaLikeBytes, isPlainNumberBytes } from '../../src/bins/index.js';
+import { CsvByteWriter } from '../../src/bins/csv-bytes.js';
+import { csvCell, isFormulaLike } from '../../src/table/index.js';
+
+const RUNS = Number(process.env.QUERN_FUZZ_RUNS ?? 2000);
+const ch = fc.constantFrom('=', '+', '-', '@', '\t', '\r', '\n', '"', ',', ';', '1', '0', '.', 'e', 'E', 'a', ' ', "'", 'é', '→');
+const cellText = fc.array(ch, { maxLength: 12 }).map((a) => a.join(''));
+
+async function cellOf(value: string, neutralise: boolean): Promise<string> {
+  let got = '';
+  const w = new CsvByteWriter(async (chunk) => { got += Buffer.from(chunk).toString('utf8'); }, neutralise, 64);
+  const buf = Buffer.from(`[${value}]`, 'utf8');
+  w.cell(buf, 1, buf.length - 1);
+  await w.flush();
+  return got;
+}
+
+describe('CSV cells as bytes (src/bins/csv-bytes.ts) against csvCell (src/table/write.ts)', () => {
+  // OWASP CSV Injection: = + - @ TAB CR LF start a formula; plain numbers such as -5 stay numbers.
+  it.each([['=1+2', true], ['-5', false], ['+3.2', false], ['-1e5', false], ['-.5', false], ['-', true], ['@SUM(A1)', true], ['\tx', true], ['-1e', true], ['45', false], ['', false]] as const)(
+    'isFormulaLikeBytes(%j) is %s, as isFormulaLike (OWASP CSV Injection)', (value, expected) => {
+      const b = Buffer.from(value);
+      expect(isFormulaLikeBytes(b, 0, b.length)).toBe(expected);
+      expect(isFormulaLike(value)).toBe(expected);
+    });
+
+  it('isPlainNumberBytes and isFormulaLikeBytes agree with the string rules on random text (differential, property)', () => {
+    fc.assert(fc.property(cellText, (value) => {
+      const b = Buffer.from(value, 'utf8');
+      expect(isFormulaLikeBytes(b, 0, b.length)).toBe(isFormulaLike(value));
+      expect(isPlainNumberBytes(b, 0, b.length)).toBe(/^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/.test(value));
+    }), { numRuns: RUNS });
+  });
+
+  it('CsvByteWriter.cell writes every cell as csvCell does, neutralising or not (RFC 4180 §2.6–2.7 quoting; differential, property)', async () => {
+    await fc.assert(fc.asyncProperty(cellText, fc.boolean(), async (value, neutralise) => {
+      expect(await cellOf(value, neutralise)).toBe(csvCell(value, { neutraliseFormulas: neutralise }));
+    }), { numRuns: RUNS });
+  });
+});
