@@ -10,8 +10,8 @@ import { endKeys, keyOf, sortByEnds, type EndKeys } from './keys.js';
 /** One overlapping pair: indices into the caller's array, `a` starting no later than `b`. */
 export interface OverlapPair { a: number; b: number; relation: AllenRelation }
 
-/** A range written more than once: the indices of every copy, in input order. */
-export interface DuplicateGroup { indices: number[] }
+/** A range written more than once: the indices of its copies in input order (the first `maxListed`), and how many copies there are. */
+export interface DuplicateGroup { indices: number[]; count: number }
 
 export interface RangeCheck {
   /** Ranges checked (empty ranges are listed in `empty`, not checked). */
@@ -20,14 +20,20 @@ export interface RangeCheck {
   overlaps: OverlapPair[];
   /** Every overlapping pair of distinct ranges, listed or not. */
   overlapCount: number;
+  /** The holes in order, at most `maxListed` of them; `holeCount` counts them all. */
   holes: Range[];
+  holeCount: number;
+  /** Ranges written more than once, at most `maxListed` groups; `duplicateCount` counts all groups. */
   duplicates: DuplicateGroup[];
-  /** Indices of ranges that hold no value ([5,5)). */
+  duplicateCount: number;
+  /** Indices of ranges that hold no value ([5,5)), the first `maxListed`; `emptyCount` counts them all. */
   empty: number[];
+  emptyCount: number;
   /** The domain checked: the one given, else from the lowest low end to the highest high end. */
   domain: Range | null;
-  /** Indices of ranges reaching outside a given domain. */
+  /** Indices of ranges reaching outside a given domain, the first `maxListed`; `outsideCount` counts them all. */
   outside: number[];
+  outsideCount: number;
   /** Every value of the domain lies in some range. */
   covers: boolean;
   /** Every value of the domain lies in exactly one range, and no range reaches outside it. */
@@ -38,32 +44,41 @@ export interface RangeCheckOptions {
   domain?: Range;
   /** How many overlapping pairs to list (all are counted); default 1000. */
   maxPairs?: number;
+  /**
+   * How many holes, duplicate groups, copies per duplicate group, empty and outside ranges to list (all are
+   * counted); default all. A million identical ranges then cost a count, not a million-entry list.
+   */
+  maxListed?: number;
 }
 
-/** Positions of the non-empty ranges sorted by ends; positions of empty ones apart. */
-function sortedOrder(k: EndKeys): { order: Uint32Array; empty: number[] } {
+/** Positions of the non-empty ranges sorted by ends; positions of empty ones apart (the first `max` listed). */
+function sortedOrder(k: EndKeys, max: number): { order: Uint32Array; empty: number[]; emptyCount: number } {
   const empty: number[] = [];
   const n0 = k.low.length;
   const ids = new Uint32Array(n0);
-  let n = 0;
-  for (let j = 0; j < n0; j++) if (k.low[j]! >= k.high[j]!) empty.push(j); else ids[n++] = j;
-  return { order: sortByEnds(ids.subarray(0, n), k), empty };
+  let n = 0, emptyCount = 0;
+  for (let j = 0; j < n0; j++) {
+    if (k.low[j]! < k.high[j]!) ids[n++] = j;
+    else if (emptyCount++ < max) empty.push(j);
+  }
+  return { order: sortByEnds(ids.subarray(0, n), k), empty, emptyCount };
 }
 
-/** Collapses copies: one representative per distinct range, and the duplicate groups. */
-function distinct(order: Uint32Array, k: EndKeys): { reps: Uint32Array; duplicates: DuplicateGroup[] } {
+/** Collapses copies: one representative per distinct range, and the duplicate groups (the first `max`, each listing `max` copies). */
+function distinct(order: Uint32Array, k: EndKeys, max: number): { reps: Uint32Array; duplicates: DuplicateGroup[]; duplicateCount: number } {
   const reps = new Uint32Array(order.length);
-  let r = 0;
+  let r = 0, duplicateCount = 0;
   const duplicates: DuplicateGroup[] = [];
   for (let i = 0; i < order.length;) {
     const a = order[i]!;
     let j = i + 1;
     while (j < order.length && k.low[order[j]!] === k.low[a] && k.high[order[j]!] === k.high[a]) j++;
     reps[r++] = a;
-    if (j - i > 1) duplicates.push({ indices: Array.from(order.subarray(i, j)) });
+    // Copies sit in position order (sortByEnds breaks ties by position), so the first `max` are the earliest.
+    if (j - i > 1 && duplicateCount++ < max) duplicates.push({ indices: Array.from(order.subarray(i, Math.min(j, i + max))), count: j - i });
     i = j;
   }
-  return { reps: reps.subarray(0, r), duplicates };
+  return { reps: reps.subarray(0, r), duplicates, duplicateCount };
 }
 
 /** The sweep: active ranges in a min-heap by high end; each new range overlaps every one still active. */
@@ -89,13 +104,14 @@ function positionRange(k: EndKeys, from: number, to: number, discrete: boolean):
   return rangeFromPositions(k.values[from >> 1]!, from & 1, k.values[to >> 1]!, to & 1, discrete);
 }
 
-/** Holes between consecutive ranges, clipped to the domain keys [dlo, dhi). */
-function findHoles(reps: Uint32Array, k: EndKeys, dlo: number, dhi: number, discrete: boolean): Range[] {
+/** Holes between consecutive ranges, clipped to the domain keys [dlo, dhi): all counted, the first `max` listed. */
+function findHoles(reps: Uint32Array, k: EndKeys, dlo: number, dhi: number, discrete: boolean, max: number): { holes: Range[]; count: number } {
   const holes: Range[] = [];
+  let count = 0;
   let reach = dlo; // how far the ranges reach so far
   const hole = (from: number, to: number): void => {
     const a = Math.max(from, dlo), b = Math.min(to, dhi);
-    if (a < b) holes.push(positionRange(k, a, b, discrete));
+    if (a < b && count++ < max) holes.push(positionRange(k, a, b, discrete));
   };
   for (let r = 0; r < reps.length; r++) {
     const i = reps[r]!;
@@ -103,7 +119,16 @@ function findHoles(reps: Uint32Array, k: EndKeys, dlo: number, dhi: number, disc
     if (k.high[i]! > reach) reach = k.high[i]!;
   }
   if (reach < dhi) hole(reach, dhi);
-  return holes;
+  return { holes, count };
+}
+
+/** Positions of ranges reaching outside the domain keys [dlo, dhi), in input order: the first `max`, and the count. */
+function findOutside(order: Uint32Array, k: EndKeys, dlo: number, dhi: number, max: number): { outside: number[]; count: number } {
+  const all = new Uint32Array(order.length);
+  let count = 0;
+  for (let j = 0; j < order.length; j++) { const i = order[j]!; if (k.low[i]! < dlo || k.high[i]! > dhi) all[count++] = i; }
+  const first = all.subarray(0, count).sort();
+  return { outside: Array.from(first.subarray(0, Math.min(count, max))), count };
 }
 
 /**
@@ -128,22 +153,21 @@ export function checkRangeColumns(c: RangeColumns, ids: Uint32Array | undefined,
   const d = options.domain;
   const all = ids ?? identity(c.length);
   const k = endKeys(c, all, d === undefined ? [] : [lowValue(d), highValue(d)]);
-  const { order, empty } = sortedOrder(k);
-  const { reps, duplicates } = distinct(order, k);
+  const max = options.maxListed ?? Infinity;
+  const { order, empty, emptyCount } = sortedOrder(k, max);
+  const { reps, duplicates, duplicateCount } = distinct(order, k, max);
   const { pairs, count } = sweepOverlaps(reps, k, options.maxPairs ?? 1000);
   let dlo = 0, dhi = 0, hasDomain = reps.length > 0;
   if (d !== undefined) { dlo = keyOf(k, lowValue(d), lowSide(d)); dhi = keyOf(k, highValue(d), highSide(d)); hasDomain = true; }
   else if (reps.length > 0) { dlo = k.low[reps[0]!]!; for (let r = 0; r < reps.length; r++) dhi = Math.max(dhi, k.high[reps[r]!]!); }
   let discrete = order.length > 0;
   for (let j = 0; j < order.length; j++) if ((c.flags[all[order[j]!]!]! & DISCRETE) === 0) { discrete = false; break; }
-  const holes = hasDomain ? findHoles(reps, k, dlo, dhi, discrete) : [];
-  const outside: number[] = [];
-  if (d !== undefined) for (let j = 0; j < order.length; j++) { const i = order[j]!; if (k.low[i]! < dlo || k.high[i]! > dhi) outside.push(i); }
-  outside.sort((a, b) => a - b);
-  const covers = hasDomain && holes.length === 0;
+  const { holes, count: holeCount } = hasDomain ? findHoles(reps, k, dlo, dhi, discrete, max) : { holes: [], count: 0 };
+  const { outside, count: outsideCount } = d !== undefined ? findOutside(order, k, dlo, dhi, max) : { outside: [], count: 0 };
+  const covers = hasDomain && holeCount === 0;
   return {
-    ranges: order.length, overlaps: pairs, overlapCount: count, holes, duplicates, empty,
-    domain: hasDomain ? positionRange(k, dlo, dhi, discrete) : null, outside, covers,
-    partition: covers && count === 0 && duplicates.length === 0 && outside.length === 0,
+    ranges: order.length, overlaps: pairs, overlapCount: count, holes, holeCount, duplicates, duplicateCount, empty, emptyCount,
+    domain: hasDomain ? positionRange(k, dlo, dhi, discrete) : null, outside, outsideCount, covers,
+    partition: covers && count === 0 && duplicateCount === 0 && outsideCount === 0,
   };
 }

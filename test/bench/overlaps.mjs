@@ -4,6 +4,7 @@
 // Prints wall time, user CPU and peak resident memory of the built CLI, as /usr/bin/time reports them.
 //
 //   npx tsc -p . && node test/bench/overlaps.mjs [--rows 1000000] [--repeat 1] [--only random,identical] [--keep]
+//     [--cli path/to/main.js] [--text]   (--text times the human output instead of --json)
 import { spawnSync } from 'node:child_process';
 import { closeSync, existsSync, mkdtempSync, openSync, rmSync, writeSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
@@ -18,8 +19,9 @@ const opt = (name, dflt) => {
 };
 const rows = Number(opt('rows', '1000000'));
 const repeat = Number(opt('repeat', '1'));
+const extra = opt('args', '') ? opt('args', '').split(' ') : ['--json'];
 const only = opt('only', '') ? new Set(opt('only', '').split(',')) : null;
-const cli = join(root, 'dist', 'cli', 'main.js');
+const cli = opt('cli', join(root, 'dist', 'cli', 'main.js'));
 if (!existsSync(cli)) {
   console.error('bench: build first (npx tsc -p .)');
   process.exit(2);
@@ -97,6 +99,12 @@ function timed(argv) {
   return { wall, user, sys, rss: kb / 1024, status: r.status, out: r.stdout };
 }
 
+/** The totals of a --json output, and its size. */
+function jsonSummary(out) {
+  const j = JSON.parse(out);
+  return `${j.ranges} ranges, ${j.totals.overlaps} overlaps, ${j.totals.holes} holes, ${j.totals.duplicates} duplicates, ${j.totals.series} series; ${(out.length / 1e6).toFixed(1)} MB of JSON`;
+}
+
 console.log(`quern overlaps benchmark — ${new Date().toISOString()}, ${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, Node ${process.version}, load ${loadavg().map((x) => x.toFixed(2)).join(' ')}`);
 console.log(`${'case'.padEnd(44)}${'rows'.padStart(11)}${'wall s'.padStart(8)}${'user s'.padStart(8)}${'sys s'.padStart(7)}${'peak MB'.padStart(9)}  result`);
 for (const c of cases) {
@@ -104,9 +112,8 @@ for (const c of cases) {
   const path = join(dir, c.file);
   c.make(path);
   for (let i = 0; i < repeat; i++) {
-    const t = timed([path, ...c.argv, '--json', '--max-pairs', '1000']);
-    const j = JSON.parse(t.out);
-    const summary = `${j.ranges} ranges, ${j.totals.overlaps} overlaps, ${j.totals.holes} holes, ${j.totals.duplicates} duplicates, ${j.totals.series} series`;
+    const t = timed([path, ...c.argv, ...extra]);
+    const summary = extra.includes('--json') ? jsonSummary(t.out) : `${(t.out.length / 1e6).toFixed(1)} MB of text: ${t.out.split('\n', 2).join(' / ')}`;
     console.log(`${c.name.padEnd(44)}${rows.toLocaleString('en-US').padStart(11)}${t.wall.toFixed(2).padStart(8)}${t.user.toFixed(2).padStart(8)}${t.sys.toFixed(2).padStart(7)}${t.rss.toFixed(0).padStart(9)}  ${summary}`);
   }
 }

@@ -16,6 +16,11 @@ export interface OverlapsReportOptions {
 
 type Chart = NonNullable<OverlapsResult['chart']>[number];
 
+/** A row saying how many findings of a kind the capped list leaves out, or none. */
+function moreRow(count: number, listed: number, what: string): Array<readonly [string, string, null, null]> {
+  return count > listed ? [[`and ${formatNumber(count - listed)} more ${what}`, 'raise --max-listed, or see --json', null, null] as const] : [];
+}
+
 function findingsTable(s: OverlapsSeries, name: string): SafeHtml {
   const rows = [
     ...s.overlaps.map((p) => [`line ${p.a.line} ${p.a.range}`, p.relation, `line ${p.b.line} ${p.b.range}`, p.shared] as const),
@@ -24,7 +29,13 @@ function findingsTable(s: OverlapsSeries, name: string): SafeHtml {
     ...s.empty.map((e) => [`line ${e.line} ${e.range}`, 'empty', 'holds no value', null] as const),
     ...s.outside.map((e) => [`line ${e.line} ${e.range}`, 'outside', 'reaches outside the domain', null] as const),
   ];
-  const more = s.overlapCount > s.overlaps.length ? [[`and ${formatNumber(s.overlapCount - s.overlaps.length)} more overlapping pairs`, 'see --json', null, null] as const] : [];
+  const more = [
+    moreRow(s.overlapCount, s.overlaps.length, 'overlapping pairs'),
+    moreRow(s.holeCount, s.holes.length, 'holes'),
+    moreRow(s.duplicateCount, s.duplicates.length, 'duplicated ranges'),
+    moreRow(s.emptyCount, s.empty.length, 'empty ranges'),
+    moreRow(s.outsideCount, s.outside.length, 'ranges outside the domain'),
+  ].flat();
   return dataTable({
     caption: `Findings for ${name}`,
     columns: [{ label: 'range' }, { label: 'relation' }, { label: 'other range' }, { label: 'shared' }],
@@ -35,13 +46,13 @@ function findingsTable(s: OverlapsSeries, name: string): SafeHtml {
 function seriesSection(r: OverlapsResult, s: OverlapsSeries, chart: Chart | undefined, i: number): SafeHtml {
   const name = s.key === null ? 'All ranges' : s.key;
   const id = makeId('overlaps', `${i}-${name}`);
-  const gist = `${formatNumber(s.ranges)} ranges; ${formatNumber(s.overlapCount)} overlapping pair${s.overlapCount === 1 ? '' : 's'}, ${formatNumber(s.holes.length)} hole${s.holes.length === 1 ? '' : 's'}, ${formatNumber(s.duplicates.length)} duplicate${s.duplicates.length === 1 ? '' : 's'}`;
+  const gist = `${formatNumber(s.ranges)} ranges; ${formatNumber(s.overlapCount)} overlapping pair${s.overlapCount === 1 ? '' : 's'}, ${formatNumber(s.holeCount)} hole${s.holeCount === 1 ? '' : 's'}, ${formatNumber(s.duplicateCount)} duplicate${s.duplicateCount === 1 ? '' : 's'}`;
   const cover = r.domainGiven && s.domain ? `${s.covers ? 'Covers' : 'Does not cover'} ${s.domain}${s.partition ? ' exactly: a partition' : ''}.` : '';
   const lanes = chart
     ? rangeLanes({
         id,
         title: `${name}: ranges on one axis`,
-        summary: `${name}: ${gist}. ${s.overlaps.map((p) => `${p.a.range} ${p.relation} ${p.b.range}`).join('; ')}${s.holes.length ? `; holes ${s.holes.map((h) => h.range).join(', ')}` : ''}.`,
+        summary: `${name}: ${gist}. ${s.overlaps.map((p) => `${p.a.range} ${p.relation} ${p.b.range}`).join('; ')}${s.holes.length ? `; holes ${s.holes.map((h) => h.range).join(', ')}${s.holeCount > s.holes.length ? ` and ${formatNumber(s.holeCount - s.holes.length)} more` : ''}` : ''}.`,
         ranges: chart.ranges.map((a) => ({ label: a.label, low: a.low, high: a.high })),
         marks: chart.marks,
         format: chart.format,
