@@ -64,12 +64,16 @@ export { overlapsText, overlapsJson } from './report/overlaps.js';
 export type { OverlapsResult, OverlapsSeries, RangeRef } from './report/overlaps.js';
 export { makeRange, discreteRange, rangeContains, rangeEquals, compareRanges, isEmptyRange, allenRelation, ALLEN_INVERSE, OVERLAPPING_RELATIONS, parseRangeLabel, tryParseNumericRange, formatRange, rangeFromEndpoints, parseDomain, checkRanges, checkRangeColumns, RangeColumnsBuilder, IntColumn, rangeAt, rangeColumnsOf, rangeFlags, LOW_CLOSED, HIGH_CLOSED, DISCRETE } from './ranges/index.js';
 export type { Range, EndsRule, TimeEndpoint, TimeEndpoints, RangeLabelOptions, AllenRelation, RangeCheck, RangeCheckOptions, OverlapPair, DuplicateGroup, RangeColumns } from './ranges/index.js';
+export { overlapsJsonParts, overlapsHeadText, overlapsSeriesText } from './report/overlaps.js';
+export type { OverlapsHead, OverlapsTotals, OverlapsChart, OverlapsTextOptions } from './report/overlaps.js';
 
 // --- bins ---
 export { bucketSummaryText, bucketSummaryJson, schemesText } from './report/bucket.js';
 export type { BucketTextOptions } from './report/bucket.js';
 export { BUCKET_SCHEMES, findScheme, bucketsFromEdges, bucketsFromExtents, mergeEdges, toDiscrete, quantileOfSorted, equalWidthEdges, quantileEdges, ckmeansExtents, ruleBinCount, BIN_RULES, CKMEANS_MAX_VALUES, makeBucketer, BELOW, ABOVE, BETWEEN, buildBuckets, planNeedsData, bucketSpecOf, bucketsFromSpec, BucketTally, NumberBuffer, bucketTable } from './bins/index.js';
 export type { ClosedSide, Bucket, BucketScheme, MergedEdge, BucketSet, BucketSpec, EdgeOptions, QuantileType, BinRule, Extent, Bucketer, BucketPlan, BucketData, BuildOptions, BucketSummary, BucketCount, Outcome, BucketExample, BucketRunOptions, BucketSink, BucketRunResult } from './bins/index.js';
+export { bucketTableCsv, bucketFile, BUCKET_PARALLEL_MIN_BYTES, makeNumberBytesParser, ckmeansWeighted, distinctWithCounts, CKMEANS_MAX_CELLS } from './bins/index.js';
+export type { CsvRowsOutput, NumberBytesParser, BucketThreads } from './bins/index.js';
 
 // --- rebin ---
 export {
@@ -81,6 +85,8 @@ export type {
   AccumulatorLimits, LocalResolutions,
 } from './rebin/index.js';
 export { rebinRowCells, rebinRowRecord, rebinJson, rebinNdjson, rebinSummaryText } from './report/rebin.js';
+export { rebinFile, PARALLEL_MIN_BYTES } from './rebin/index.js';
+export type { RebinThreads, RebinPlan } from './rebin/index.js';
 
 // --- gaps ---
 export {

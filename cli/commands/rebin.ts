@@ -4,13 +4,14 @@ import { statSync } from 'node:fs';
 import { resolve as resolvePath } from 'node:path';
 import { Command, Option } from 'commander';
 import {
-  QuernError, boundInstant, csvRow, openOutput, openTable, parseAggSpecs, parseAssignPolicy, parseFiscalStart,
-  parseQuantileType, parseUnitName, parseWeekStart, rebin, rebinJson, rebinNdjson, rebinRowCells, rebinSummaryText,
+  QuernError, boundInstant, csvRow, openOutput, parseAggSpecs, parseAssignPolicy, parseFiscalStart,
+  parseQuantileType, parseUnitName, parseWeekStart, rebinFile, rebinJson, rebinNdjson, rebinRowCells, rebinSummaryText,
   renderRebinReport,
 } from '../../src/index.js';
 import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { CalendarOptions, RebinOptions, RebinResult } from '../../src/index.js';
 import type { CommandContext } from '../program.js';
+import { parseThreads, THREADS_HELP } from '../threads.js';
 import { makeProgress } from '../progress.js';
 
 const collect = (v: string, prev: string[] | undefined): string[] => [...(prev ?? []), v];
@@ -36,6 +37,9 @@ Rules:
   (Hyndman-Fan type 7 unless --quantile-type), keeping each period's values; distinct counts are exact.
   Source values that are periods (weeks, months) must nest in the target unit, or take --assign.
   Rows read = used + empty time + rejected + outside --from/--until; the summary shows each.
+  A plain CSV/TSV file of 32 MB or more is read on --threads threads in byte ranges merged in file order:
+  the result, line numbers included, is that of one read (--assign apportion, standard input and gzip are
+  read on one thread).
   CSV cells a spreadsheet would run as formulas (a leading =, +, -, @, tab, CR or LF) are neutralised with a
   leading ' (OWASP CSV injection guidance); plain numbers such as -5 stay numbers. --no-neutralise turns this
   off for trusted pipelines.
@@ -50,7 +54,7 @@ interface RebinFlags {
   agg?: string[]; by?: string[]; fill: boolean; from?: string; until?: string; maxPeriods?: string; assign?: string;
   sourceUnit?: string; sourceAnchor?: 'start' | 'end'; timeFormat?: string; dayFirst?: boolean; monthFirst?: boolean; quantileType?: string;
   format: 'csv' | 'json' | 'ndjson'; out: string; delimiter?: string; maxBuffered?: string; maxDistinct?: string; quiet?: boolean;
-  report?: string; neutralise: boolean;
+  report?: string; neutralise: boolean; threads?: string;
 }
 
 export function registerRebin(program: Command, ctx: CommandContext): void {
@@ -84,21 +88,21 @@ export function registerRebin(program: Command, ctx: CommandContext): void {
     .option('--no-neutralise', 'do not neutralise formula-like cells in CSV output (trusted pipelines only)')
     .option('--max-buffered <n>', 'values kept for exact medians and quantiles, all periods together (default 20,000,000)')
     .option('--max-distinct <n>', 'values kept for distinct counts, all periods together (default 2,000,000)')
+    .option('--threads <n>', THREADS_HELP)
     .option('-q, --quiet', 'no summary on standard error')
     .option('--report <file.html>', REPORT_HELP)
     .addHelpText('after', EXAMPLES)
     .action(async (file: string, flags: RebinFlags) => {
       const options = rebinOptions(flags);
+      const threads = parseThreads(flags.threads);
       const progress = makeProgress(ctx.io, sizeOf(file, ctx), { label: file });
-      const reader = await openTable(file, {
-        cwd: ctx.io.cwd, stdin: ctx.io.stdin, onProgress: (b, t) => progress.onProgress(b, t ?? 0), ...(flags.delimiter ? { delimiter: flags.delimiter } : {}),
-      });
       let result: RebinResult;
       try {
-        result = await rebin(reader, options);
+        result = await rebinFile(file, options, {
+          cwd: ctx.io.cwd, stdin: ctx.io.stdin, onProgress: (b, t) => progress.onProgress(b, t ?? 0), ...(flags.delimiter ? { delimiter: flags.delimiter } : {}),
+        }, { threads });
       } finally {
         progress.stop();
-        reader.close();
       }
       await writeResult(result, flags, ctx);
       await writeReport(flags.report, () => renderRebinReport(result), ctx.io);
