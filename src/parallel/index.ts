@@ -5,3 +5,4 @@ export { planRanges } from './plan.js';
 export { runRanges } from './pool.js';
 export { lineBases, mergeSummaries } from './lines.js';
 export { siblingModule, isSourceModule } from './module-url.js';
+export { openRange, type RangeReadOptions } from './open-range.js';

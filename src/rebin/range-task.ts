@@ -3,7 +3,7 @@
 // inferred from the file's first rows. Runs in a worker thread or in the main thread (src/parallel).
 import { isQuernError } from '../errors.js';
 import type { ByteRange, RangeHooks, RangeOutcome } from '../parallel/types.js';
-import { openTable } from '../table/index.js';
+import { openRange, type RangeReadOptions } from '../parallel/open-range.js';
 import type { RebinPartial } from './merge.js';
 import { partialOf } from './merge.js';
 import { prepareRebin, scanTable } from './rebin.js';
@@ -11,13 +11,9 @@ import type { ReadFormats } from './setup.js';
 import type { RebinOptions } from './types.js';
 
 /** What every range task of one parallel rebin is handed (structured-clonable). */
-export interface RebinRangeOptions {
+export interface RebinRangeOptions extends RangeReadOptions {
   options: RebinOptions;
   formats: ReadFormats;
-  cwd?: string;
-  delimiter?: string;
-  /** Bytes per read (TableOptions.chunkSize). */
-  chunkSize?: number;
 }
 
 /**
@@ -26,13 +22,7 @@ export interface RebinRangeOptions {
  * starts inside a quoted field is read again by the pool, and its misread rows must not stop the run.
  */
 export async function rebinRange(file: string, o: RebinRangeOptions, range: ByteRange, hooks: RangeHooks): Promise<RangeOutcome<RebinPartial>> {
-  const reader = await openTable(file, {
-    byteRange: { start: range.start, end: range.end },
-    ...(o.cwd !== undefined ? { cwd: o.cwd } : {}),
-    ...(o.delimiter !== undefined ? { delimiter: o.delimiter } : {}),
-    ...(o.chunkSize !== undefined ? { chunkSize: o.chunkSize } : {}),
-    ...(hooks.onProgress !== undefined ? { onProgress: (b: number) => hooks.onProgress!(b) } : {}),
-  });
+  const reader = await openRange(file, range, o, hooks);
   try {
     let partial: RebinPartial;
     try {

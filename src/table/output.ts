@@ -121,6 +121,35 @@ function stdoutTarget(out: StdoutLike): OutputTarget {
   };
 }
 
+/**
+ * Text queued for a file handle and written in blocks of FLUSH_AT characters; a failed write calls
+ * `fail` (which aborts the target) and throws one E_OUTPUT line.
+ */
+function textQueue(shown: string, handle: FileHandle, fail: () => Promise<void>): { add(text: string): Promise<void>; flush(): Promise<void>; drop(): void } {
+  let pending = '';
+  const flush = async (): Promise<void> => {
+    if (pending === '') return;
+    const text = pending;
+    pending = '';
+    try {
+      await handle.write(text);
+    } catch (e) {
+      await fail();
+      throw outputError(shown, e);
+    }
+  };
+  return {
+    async add(text) {
+      pending += text;
+      if (pending.length >= FLUSH_AT) await flush();
+    },
+    flush,
+    drop: () => {
+      pending = '';
+    },
+  };
+}
+
 /** A target that is not a regular file: written directly, as it cannot be replaced atomically. */
 async function deviceTarget(shown: string, target: string): Promise<OutputTarget> {
   let handle: FileHandle;
@@ -129,39 +158,27 @@ async function deviceTarget(shown: string, target: string): Promise<OutputTarget
   } catch (e) {
     throw outputError(shown, e);
   }
-  let pending = '';
-  let open_ = true;
-  async function flush(): Promise<void> {
-    if (pending === '') return;
-    const text = pending;
-    pending = '';
-    try {
-      await handle.write(text);
-    } catch (e) {
-      await out.abort();
-      throw outputError(shown, e);
-    }
-  }
+  let isOpen = true;
+  const queue = textQueue(shown, handle, () => out.abort());
   const out: OutputTarget = {
     path: shown,
     closed: false,
     async write(text) {
-      if (!open_) throw new QuernError('E_INTERNAL', `${shown}: written after it was closed`);
-      pending += text;
-      if (pending.length >= FLUSH_AT) await flush();
+      if (!isOpen) throw new QuernError('E_INTERNAL', `${shown}: written after it was closed`);
+      await queue.add(text);
     },
     async commit() {
-      if (!open_) return;
-      await flush();
-      open_ = false;
+      if (!isOpen) return;
+      await queue.flush();
+      isOpen = false;
       await handle.close().catch((e: unknown) => {
         throw outputError(shown, e);
       });
     },
     async abort() {
-      if (!open_) return;
-      open_ = false;
-      pending = '';
+      if (!isOpen) return;
+      isOpen = false;
+      queue.drop();
       await handle.close().catch(() => undefined);
     },
   };
@@ -200,30 +217,18 @@ async function fileTarget(shown: string, target: string): Promise<OutputTarget> 
   } catch (e) {
     throw outputError(shown, e);
   }
-  let pending = '';
   let state: 'open' | 'committed' | 'aborted' = 'open';
-  async function flush(): Promise<void> {
-    if (pending === '') return;
-    const text = pending;
-    pending = '';
-    try {
-      await handle.write(text);
-    } catch (e) {
-      await target_.abort();
-      throw outputError(shown, e);
-    }
-  }
+  const queue = textQueue(shown, handle, () => target_.abort());
   const target_: OutputTarget = {
     path: shown,
     closed: false,
     async write(text) {
       if (state !== 'open') throw new QuernError('E_INTERNAL', `${shown}: written after ${state === 'committed' ? 'commit' : 'abort'}`);
-      pending += text;
-      if (pending.length >= FLUSH_AT) await flush();
+      await queue.add(text);
     },
     async commit() {
       if (state !== 'open') return;
-      await flush();
+      await queue.flush();
       try {
         await handle.sync();
         await handle.close();
@@ -239,7 +244,7 @@ async function fileTarget(shown: string, target: string): Promise<OutputTarget> 
       if (state !== 'open') return;
       state = 'aborted';
       uncommitted.delete(target_);
-      pending = '';
+      queue.drop();
       await handle.close().catch(() => undefined);
       await unlink(temp).catch(() => undefined);
     },
