@@ -119,16 +119,19 @@ export async function* referenceCsvBatches(ctx: BodyContext): AsyncGenerator<Col
   let skipFrom = -1; // while skipping a rejected record to its line end: where the search resumes
   const onRecord = (ext: { record: string[]; raw: string }, bytesRead: number): void => {
     const { record, raw } = ext;
+    const nul = raw.includes('\0') ? nulAfterClosingQuote(raw, ctx.delimiter) : -1;
+    if (nul >= 0) {
+      // csv-parse takes NUL after a closing quote as a field's end; RFC 4180 §2.7 does not (see below):
+      // the record breaks there, and like any broken record it runs to its line end, quotes ignored.
+      errAt = recStart + nul;
+      throw STOP;
+    }
     const line = lines.lineAt(recStart);
     recStart = base + bytesRead;
     lines.lineAt(recStart);
     window.release(recStart);
-    const nul = raw.includes('\0') ? nulAfterClosingQuote(raw, ctx.delimiter) : -1;
     const bytes = Buffer.from(raw, 'latin1');
-    if (nul >= 0) {
-      // csv-parse takes NUL after a closing quote as a field's end; RFC 4180 §2.7 does not (see below).
-      rejectMalformed(ctx, 'bad-quote', line, -1, () => preview(raw));
-    } else if (record.length === 1 && record[0] === '' && /^(\r\n|\r|\n)$/.test(raw)) {
+    if (record.length === 1 && record[0] === '' && /^(\r\n|\r|\n)$/.test(raw)) {
       account.blankLines++;
     } else if (!isUtf8(bytes)) {
       const bad = record.findIndex((f) => !isUtf8(Buffer.from(f, 'latin1')));
