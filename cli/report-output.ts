@@ -1,7 +1,8 @@
 // `--report FILE.html` for every analysing command: one option, one call after the result is computed.
 // The page is written atomically (a temporary file renamed over the target) through the table output.
 import type { Command } from 'commander';
-import { QuernError, openOutput } from '../src/index.js';
+import { QuernError } from '../src/errors.js';
+import { openOutput } from '../src/table/index.js';
 import type { CliIO } from './io.js';
 
 /** Help of the `--report <file.html>` option, the same on every command. */

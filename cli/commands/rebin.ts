@@ -3,11 +3,13 @@
 import { statSync } from 'node:fs';
 import { resolve as resolvePath } from 'node:path';
 import { Command, Option } from 'commander';
-import {
-  QuernError, boundInstant, csvRow, openOutput, parseAggSpecs, parseAssignPolicy, parseFiscalStart,
-  parseQuantileType, parseUnitName, parseWeekStart, rebinFile, rebinJson, rebinNdjson, rebinRowCells, rebinSummaryText,
-  renderRebinReport,
-} from '../../src/index.js';
+// The concepts' own indexes (re-exported by src/index.ts), so that a run loads only what rebin needs;
+// the HTML report is loaded only with --report.
+import { QuernError } from '../../src/errors.js';
+import { parseFiscalStart, parseUnitName, parseWeekStart } from '../../src/calendar/index.js';
+import { boundInstant, parseAggSpecs, parseAssignPolicy, parseQuantileType, rebinFile } from '../../src/rebin/index.js';
+import { rebinJson, rebinNdjson, rebinRowCells, rebinSummaryText } from '../../src/report/rebin.js';
+import { csvRow, openOutput } from '../../src/table/index.js';
 import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { CalendarOptions, RebinOptions, RebinResult } from '../../src/index.js';
 import type { CommandContext } from '../program.js';
@@ -105,7 +107,7 @@ export function registerRebin(program: Command, ctx: CommandContext): void {
         progress.stop();
       }
       await writeResult(result, flags, ctx);
-      await writeReport(flags.report, () => renderRebinReport(result), ctx.io);
+      await writeReport(flags.report, async () => (await import('../../src/report/index.js')).renderRebinReport(result), ctx.io);
       if (!flags.quiet && flags.format !== 'json') ctx.io.stderr.write(rebinSummaryText(result));
     });
 }
