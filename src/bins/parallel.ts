@@ -2,8 +2,6 @@
 // each range is counted with the number format and bucket set decided from the file's first rows, and the
 // tallies are added in file order, examples shifted to file lines. Counting merges exactly; only fixed
 // plans (edges, schemes, specs) on plain CSV/TSV files read by the fast engine go parallel.
-import { open } from 'node:fs/promises';
-import { resolve } from 'node:path';
 import { lineBases, mergeSummaries, planRanges, runRanges, siblingModule } from '../parallel/index.js';
 import { openTable, type TableOptions } from '../table/index.js';
 import { buildBuckets, planNeedsData } from './build.js';
@@ -36,7 +34,7 @@ export async function bucketFile(file: string, options: BucketRunOptions, table:
   const reader = await open();
   let sample: string[];
   try {
-    if (!(await fits(reader.engine === 'fast' && reader.format !== 'ndjson', reader.totalBytes, file, options, table, threads))) return await bucketTable(open, options);
+    if (!fits(reader.splittable, reader.totalBytes, options, table, threads)) return await bucketTable(open, options);
     reader.columnIndex(options.value);
     sample = await firstSample(reader, options.value);
   } finally {
@@ -64,21 +62,8 @@ export async function bucketFile(file: string, options: BucketRunOptions, table:
   return { summary: tally.summary(file, options.value, read.rowsRead, read.rejectedByReason), set, numberFormat: { format: reading.format, inferred: reading.inferred }, passes: 1 };
 }
 
-async function fits(fastCsv: boolean, size: number | undefined, file: string, options: BucketRunOptions, table: TableOptions, t: BucketThreads): Promise<boolean> {
-  if (t.threads < 2 || file === '-' || !fastCsv || table.byteRange !== undefined || table.engine === 'reference' || planNeedsData(options.plan)) return false;
-  if (size === undefined || size < (t.minBytes ?? BUCKET_PARALLEL_MIN_BYTES)) return false;
-  return !(await isGzip(resolve(table.cwd ?? process.cwd(), file)));
+function fits(splittable: boolean, size: number | undefined, options: BucketRunOptions, table: TableOptions, t: BucketThreads): boolean {
+  if (t.threads < 2 || !splittable || table.byteRange !== undefined || planNeedsData(options.plan)) return false;
+  return size !== undefined && size >= (t.minBytes ?? BUCKET_PARALLEL_MIN_BYTES);
 }
 
-// gzip is recognised as src/table does: by `.gz` or the magic bytes 1f 8b (RFC 1952 §2.3.1).
-async function isGzip(path: string): Promise<boolean> {
-  if (/\.gz$/i.test(path)) return true;
-  const handle = await open(path, 'r');
-  try {
-    const head = Buffer.alloc(2);
-    const { bytesRead } = await handle.read(head, 0, 2, 0);
-    return bytesRead === 2 && head[0] === 0x1f && head[1] === 0x8b;
-  } finally {
-    await handle.close();
-  }
-}

@@ -3,8 +3,6 @@
 // partials are merged in file order. Only what merges exactly goes parallel; everything else — standard
 // input, gzip, NDJSON, the reference engine, small files, apportioned source periods — is read on one
 // thread, and so is the whole file again when a range met an error, so that the error names its true line.
-import { open } from 'node:fs/promises';
-import { resolve } from 'node:path';
 import { lineBases, mergeSummaries, planRanges, runRanges, siblingModule } from '../parallel/index.js';
 import type { RangeOutcome } from '../parallel/index.js';
 import { openTable } from '../table/index.js';
@@ -63,7 +61,7 @@ export async function rebinFile(file: string, options: RebinOptions, table: Tabl
   let formats: ReadFormats;
   let p: PreparedRebin;
   try {
-    if (!(await parallelFits(reader, file, options, table, threads))) {
+    if (!parallelFits(reader, options, table, threads)) {
       threads.onPlan?.({ threads: 1, ranges: 1, mended: 0, serial: 'not-eligible' });
       return await rebin(reader, options);
     }
@@ -114,22 +112,8 @@ async function oneThread(file: string, options: RebinOptions, table: TableOption
 }
 
 /** True when the read may be split into byte ranges and its result merged exactly. */
-async function parallelFits(reader: TableReader, file: string, options: RebinOptions, table: TableOptions, t: RebinThreads): Promise<boolean> {
-  if (t.threads < 2 || file === '-' || table.byteRange !== undefined || table.engine === 'reference') return false;
-  if (reader.engine !== 'fast' || reader.format === 'ndjson' || options.assign === 'apportion') return false;
-  if (reader.totalBytes === undefined || reader.totalBytes < (t.minBytes ?? PARALLEL_MIN_BYTES)) return false;
-  return !(await isGzip(resolve(table.cwd ?? process.cwd(), file)));
+function parallelFits(reader: TableReader, options: RebinOptions, table: TableOptions, t: RebinThreads): boolean {
+  if (t.threads < 2 || !reader.splittable || table.byteRange !== undefined || options.assign === 'apportion') return false;
+  return reader.totalBytes !== undefined && reader.totalBytes >= (t.minBytes ?? PARALLEL_MIN_BYTES);
 }
 
-// gzip is recognised as src/table does: by `.gz` or the magic bytes 1f 8b (RFC 1952 §2.3.1).
-async function isGzip(path: string): Promise<boolean> {
-  if (/\.gz$/i.test(path)) return true;
-  const handle = await open(path, 'r');
-  try {
-    const head = Buffer.alloc(2);
-    const { bytesRead } = await handle.read(head, 0, 2, 0);
-    return bytesRead === 2 && head[0] === 0x1f && head[1] === 0x8b;
-  } finally {
-    await handle.close();
-  }
-}

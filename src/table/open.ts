@@ -159,6 +159,7 @@ export async function openTable(file: string, options: TableOptions = {}): Promi
     delimiter: start.delimiter,
     engine,
     totalBytes: source.totalBytes,
+    splittable: file !== '-' && !source.gzip && start.format !== 'ndjson' && engine === 'fast',
     bodyStart: start.bodyStart,
     headerLines: start.startLine - 1,
     batchSize,

@@ -117,6 +117,9 @@ export interface TableReader {
   readonly engine: TableEngine;
   /** Size of the input file in bytes as stored; undefined for standard input. */
   readonly totalBytes: number | undefined;
+  /** True when `byteRange` reads of this input are possible: a plain file (not standard input, not gzip),
+   *  CSV or TSV, read by the fast engine. */
+  readonly splittable: boolean;
   /** Offset in the (decoded) input just after the header's line end (a UTF-8 BOM counted): where the
    *  body begins, and the least `byteRange.start` > 0 may be. */
   readonly bodyStart: number;
