@@ -136,14 +136,19 @@ async function scanBytes(reader: TableReader, columns: readonly string[], make: 
     pending.length = 0;
     return { setup, scan };
   };
-  for await (const b of reader.byteBatches([columns[0]!], columns.slice(1))) {
+  // Once the first rows are scanned no batch is kept: the reader may reuse its buffers.
+  const read = { transient: false };
+  for await (const b of reader.byteBatches([columns[0]!], columns.slice(1), read)) {
     if (ready !== null) {
       ready.scan.bytes(b, view(b));
       continue;
     }
     pending.push(b);
     have += b.length;
-    if (have >= want) ready = start();
+    if (have >= want) {
+      ready = start();
+      read.transient = true;
+    }
   }
   return ready ?? start();
 }

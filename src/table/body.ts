@@ -23,6 +23,13 @@ export interface BodyContext {
   offset: number;
   /** Records are read while they start before this offset (a byte range's end); Infinity for all. */
   end: number;
+  /**
+   * The consumer's promise, read afresh at every buffer: while `transient` is true it holds no batch
+   * once it asks for the next, so read buffers and batch arrays may be reused (TableReader.byteBatches).
+   */
+  read: { readonly transient?: boolean };
+  /** Whether the SIMD kernel may find a comma-separated file's delimiters (TableOptions.simd). */
+  simd: boolean;
 }
 
 const PREVIEW_BYTES = 120;

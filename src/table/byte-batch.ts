@@ -21,22 +21,31 @@ export class ByteBatchBuilder implements RowSink<ByteBatch> {
   private side: Buffer = EMPTY;
   private sideLength = 0;
   private readonly done: ByteBatch[] = [];
+  /** The arrays of batches sealed since the last recycle, and those free to fill again. */
+  private sealed: BatchArrays[] = [];
+  private readonly spare: BatchArrays[] = [];
+  readonly fields: readonly number[];
 
   constructor(
     private readonly byteColumns: readonly number[],
     private readonly stringColumns: readonly number[],
     private readonly size: number,
   ) {
+    this.fields = [...byteColumns, ...stringColumns];
     this.fresh();
   }
 
   private fresh(): void {
     const n = this.size;
-    this.lines = new Float64Array(n);
-    this.starts = this.byteColumns.map(() => new Int32Array(n));
-    this.ends = this.byteColumns.map(() => new Int32Array(n));
-    this.decoded = this.byteColumns.map(() => new Uint8Array(n));
-    this.values = this.stringColumns.map(() => new Array<string>(n));
+    const a = this.spare.pop();
+    if (a !== undefined) ({ lines: this.lines, starts: this.starts, ends: this.ends, decoded: this.decoded, values: this.values } = a);
+    else {
+      this.lines = new Float64Array(n);
+      this.starts = this.byteColumns.map(() => new Int32Array(n));
+      this.ends = this.byteColumns.map(() => new Int32Array(n));
+      this.decoded = this.byteColumns.map(() => new Uint8Array(n));
+      this.values = this.stringColumns.map(() => new Array<string>(n));
+    }
     this.side = EMPTY;
     this.sideLength = 0;
     this.length = 0;
@@ -93,6 +102,7 @@ export class ByteBatchBuilder implements RowSink<ByteBatch> {
     const n = this.length;
     if (n === 0) return;
     const cut = n < this.size;
+    this.sealed.push({ lines: this.lines, starts: this.starts, ends: this.ends, decoded: this.decoded, values: this.values });
     this.done.push({
       length: n,
       lines: cut ? this.lines.subarray(0, n) : this.lines,
@@ -111,6 +121,23 @@ export class ByteBatchBuilder implements RowSink<ByteBatch> {
     if (flush) this.seal();
     return this.done.splice(0, this.done.length);
   }
+
+  /** The batches taken so far are no longer held: their arrays are filled again (saves allocating them). */
+  recycle(): void {
+    // Sealed but not yet taken batches are still to be handed over.
+    const kept = this.sealed.splice(this.sealed.length - this.done.length);
+    for (const a of this.sealed) this.spare.push(a);
+    this.sealed = kept;
+  }
+}
+
+/** The arrays behind one batch. */
+interface BatchArrays {
+  lines: Float64Array;
+  starts: Int32Array[];
+  ends: Int32Array[];
+  decoded: Uint8Array[];
+  values: string[][];
 }
 
 /** The string of row i of byte column c: exactly the string `batches` gives for that field. */

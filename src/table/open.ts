@@ -20,17 +20,27 @@ const BOM = [0xef, 0xbb, 0xbf];
 const LF = 0x0a;
 const CR = 0x0d;
 
-/** Reads chunks until at least `min` bytes are gathered or the input ends. */
+/**
+ * Reads chunks until at least `min` bytes are gathered or the input ends. The chunks read are copied
+ * into the buffer returned, and released to the source.
+ */
 async function gather(source: ByteSource, start: Buffer, min: number): Promise<{ buf: Buffer; final: boolean }> {
   const parts = [start];
   let size = start.length;
+  let final = false;
   while (size < min) {
     const c = await source.read();
-    if (c === null) return { buf: Buffer.concat(parts), final: true };
+    if (c === null) {
+      final = true;
+      break;
+    }
     parts.push(c);
     size += c.length;
   }
-  return { buf: parts.length === 1 ? start : Buffer.concat(parts), final: false };
+  if (parts.length === 1) return { buf: start, final };
+  const buf = Buffer.concat(parts, size);
+  for (let k = 1; k < parts.length; k++) source.release(parts[k]!);
+  return { buf, final };
 }
 
 interface Start {
@@ -170,12 +180,12 @@ export async function openTable(file: string, options: TableOptions = {}): Promi
       used = true;
       return stream(idx);
     },
-    byteBatches(byteColumns, stringColumns = []) {
+    byteBatches(byteColumns, stringColumns = [], read = {}) {
       const bytes = byteColumns.map((c) => findColumn(file, header, c));
       const strings = stringColumns.map((c) => findColumn(file, header, c));
       if (used) throw new QuernError('E_USAGE', `${file}: batches() may be read only once per openTable`);
       used = true;
-      return byteStream(bytes, strings);
+      return byteStream(bytes, strings, read);
     },
     summary() {
       const s = account.summary({
@@ -196,7 +206,7 @@ export async function openTable(file: string, options: TableOptions = {}): Promi
     },
     close: () => source.close(),
   };
-  const csvContext = (idx: readonly number[]): BodyContext => ({
+  const csvContext = (idx: readonly number[], read: BodyContext['read'] = {}): BodyContext => ({
     source,
     width: header.length,
     header,
@@ -208,6 +218,8 @@ export async function openTable(file: string, options: TableOptions = {}): Promi
     headerEndsWithBreak: relative ? true : start.endsWithBreak,
     offset: bodyOffset,
     end: range === undefined ? Infinity : range.end,
+    read,
+    simd: options.simd !== false,
   });
   const stringBody = (idx: readonly number[]): AsyncGenerator<ColumnBatch> =>
     start.format === 'ndjson'
@@ -223,10 +235,10 @@ export async function openTable(file: string, options: TableOptions = {}): Promi
   }
   const stream = (idx: number[]): AsyncGenerator<ColumnBatch> => run(stringBody(idx));
   // The fast CSV path delivers offsets into its own buffers; the others write their strings out as bytes.
-  const byteStream = (bytes: number[], strings: number[]): AsyncGenerator<ByteBatch> =>
+  const byteStream = (bytes: number[], strings: number[], read: BodyContext['read']): AsyncGenerator<ByteBatch> =>
     run(
       start.format !== 'ndjson' && engine === 'fast'
-        ? fastCsvByteBatches(csvContext(bytes), strings)
+        ? fastCsvByteBatches(csvContext(bytes, read), strings)
         : toByteBatches(stringBody([...bytes, ...strings]), bytes.length),
     );
   return reader;

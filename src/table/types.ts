@@ -27,6 +27,12 @@ export interface TableOptions {
   /** Bytes per read from the file; default 1 MiB. */
   chunkSize?: number;
   /**
+   * Whether the fast engine may find a comma-separated file's delimiters with its WebAssembly SIMD
+   * kernel; default true. false keeps to the JavaScript loop (the two give identical results; tests
+   * and benchmarks compare them).
+   */
+  simd?: boolean;
+  /**
    * Reads only the records that start in [start, end) of a plain CSV/TSV file (fast engine; QuernError
    * 'E_USAGE' for standard input, gzip, NDJSON or the reference engine). The header is still read from
    * the file's start. `start` 0 is the body right after the header, with the file's line numbers; a
@@ -136,9 +142,12 @@ export interface TableReader {
   /**
    * Streams the named columns once, as bytes (`byteColumns`) and as strings (`stringColumns`), in
    * batches with the same rows, lines and accounting as `batches`. Only one of `batches` and
-   * `byteBatches` may be read per open table.
+   * `byteBatches` may be read per open table. While `read.transient` is true (the caller may set it once
+   * it has let go of the first batches it kept), the caller promises to hold no batch, nor its buffer or
+   * arrays, once it asks for the next one; the reader then fills its read buffers and batch arrays again
+   * instead of allocating new ones (less memory, fewer page faults).
    */
-  byteBatches(byteColumns: readonly string[], stringColumns?: readonly string[]): AsyncIterable<ByteBatch>;
+  byteBatches(byteColumns: readonly string[], stringColumns?: readonly string[], read?: { readonly transient?: boolean }): AsyncIterable<ByteBatch>;
   /** Row accounting; complete once `batches` has been read to the end. */
   summary(): ReadSummary;
   /** Releases the file when the caller stops before the end of `batches`. */
