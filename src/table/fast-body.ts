@@ -9,6 +9,7 @@ import type { BodyContext } from './body.js';
 import { rowPreview, rejectMalformed, rejectRagged, rejectUndecodable } from './body.js';
 import type { RowSink } from './row-sink.js';
 import { ByteBatchBuilder } from './byte-batch.js';
+import { KernelStop, RECORD_SPAN, recordKernel, wantedMask, type RecordKernel } from './structurals.js';
 
 const LF = 0x0a;
 const CR = 0x0d;
@@ -41,6 +42,12 @@ export class FastBody<B> {
   /** The sink when it takes byte batches: called from a call site of its own, so that each call site
    *  sees one class even when a process reads strings before bytes (as rebin does to infer formats). */
   private readonly bytes: ByteBatchBuilder | null;
+  /** The SIMD kernel that walks quote-free text into records, or null (the JavaScript loop reads it). */
+  private readonly kernel: RecordKernel | null;
+  /** The fields the sink reads, ascending and distinct; their bit mask; i32 per record in the kernel's output. */
+  private readonly wanted: Int32Array;
+  private readonly want: number;
+  private readonly stride: number;
 
   constructor(
     private readonly ctx: BodyContext,
@@ -51,6 +58,11 @@ export class FastBody<B> {
     this.endsWithBreak = ctx.headerEndsWithBreak;
     this.delimiter = ctx.delimiter;
     this.bytes = sink instanceof ByteBatchBuilder ? sink : null;
+    this.wanted = Int32Array.from(new Set(sink.fields)).sort();
+    const want = wantedMask([...this.wanted]);
+    this.want = want ?? 0;
+    this.stride = 2 + 2 * this.wanted.length;
+    this.kernel = ctx.delimiter === 44 && ctx.simd && want !== null ? recordKernel() : null;
   }
 
   /**
@@ -81,7 +93,9 @@ export class FastBody<B> {
           this.scanner.escaped.fill(0);
           this.dirty = false;
         }
-        const next = this.runComma(buf, pos, quoteAt, stop, ascii, valid);
+        const next = this.kernel !== null
+          ? this.runKernel(this.kernel, buf, pos, quoteAt, stop, ascii, valid)
+          : this.runComma(buf, pos, quoteAt, stop, ascii, valid);
         dense = next > pos ? 0 : dense;
         pos = next;
         if (pos >= stop) break;
@@ -223,6 +237,66 @@ export class FastBody<B> {
     this.line = line;
     this.passed += passed;
     return pos;
+  }
+
+  /**
+   * What runComma does, by the SIMD kernel: the quote-free text from `pos` is copied to the kernel a span
+   * at a time (with the byte after it, for CRLF), and the records it writes are handed to the sink.
+   */
+  private runKernel(kernel: RecordKernel, buf: Buffer, pos: number, quoteAt: number, stop: number, ascii: boolean, valid: boolean): number {
+    const { scanner, sink, bytes, wanted, want, stride } = this;
+    const { starts, ends } = scanner;
+    const { input, output, state } = kernel;
+    const nw = wanted.length;
+    const width = this.ctx.width;
+    const len = buf.length;
+    const qa = quoteAt < len ? quoteAt : len;
+    const until = stop < 0x7fffffff ? stop : 0x7fffffff;
+    let line = this.line;
+    let passed = 0;
+    let record = pos;
+    state[0] = pos; // record start
+    state[1] = pos; // field start
+    state[2] = 0; // field number
+    state[3] = -1; // LF to skip
+    state[4] = 0; // wanted slot
+    let span = pos;
+    while (span < qa) {
+      const spanEnd = qa - span > RECORD_SPAN ? span + RECORD_SPAN : qa;
+      const ahead = spanEnd < len ? 1 : 0;
+      input.set(buf.subarray(span, spanEnd + ahead));
+      const n = kernel.records(spanEnd - span, span, want, stride, until, ahead);
+      for (let r = 0, o = 0; r < n; r++, o += stride) {
+        const end = output[o]!;
+        const f = output[o + 1]!;
+        const c0 = buf[record]!;
+        if (f === width && !(f === 1 && (c0 === LF || c0 === CR)) && (valid || isUtf8(buf.subarray(record, end)))) {
+          for (let k = 0; k < nw; k++) {
+            const field = wanted[k]!;
+            starts[field] = output[o + 2 + 2 * k]!;
+            ends[field] = output[o + 3 + 2 * k]!;
+          }
+          scanner.fieldCount = f;
+          if (bytes !== null) bytes.row(buf, ascii, scanner, line);
+          else sink.row(buf, ascii, scanner, line);
+          passed++;
+        } else this.kernelOther(buf, record, line, valid);
+        line++;
+        record = end;
+      }
+      if (state[5] !== KernelStop.Spent) break;
+      span = spanEnd;
+    }
+    this.line = line;
+    this.passed += passed;
+    return record;
+  }
+
+  /** A record the kernel found and the sink does not take: scanned again in full, for its diagnostics. */
+  private kernelOther(buf: Buffer, record: number, line: number, valid: boolean): void {
+    // A quote-free record ending in a line break inside the buffer: scanPlain reads it whole.
+    this.scanner.scanPlain(buf, record, buf.length);
+    this.other(Scan.Record, buf, record, line, valid);
   }
 
   /** A quote-free record the loops do not pass on: its bounds are left in the scanner as `scan` would. */
