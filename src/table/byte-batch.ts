@@ -21,7 +21,7 @@ export class ByteBatchBuilder implements RowSink<ByteBatch> {
   private side: Buffer = EMPTY;
   private sideLength = 0;
   private readonly done: ByteBatch[] = [];
-  /** The arrays of batches sealed since the last recycle, and those free to fill again. */
+  /** The arrays of batches sealed since the last hand-over, and those free to fill again. */
   private sealed: BatchArrays[] = [];
   private readonly spare: BatchArrays[] = [];
   readonly fields: readonly number[];
@@ -122,11 +122,14 @@ export class ByteBatchBuilder implements RowSink<ByteBatch> {
     return this.done.splice(0, this.done.length);
   }
 
-  /** The batches taken so far are no longer held: their arrays are filled again (saves allocating them). */
-  recycle(): void {
+  /**
+   * The batches taken so far are handed over: with `reuse` their arrays are filled again (saves
+   * allocating them), else forgotten (a consumer that keeps batches must not see them overwritten).
+   */
+  handedOver(reuse: boolean): void {
     // Sealed but not yet taken batches are still to be handed over.
     const kept = this.sealed.splice(this.sealed.length - this.done.length);
-    for (const a of this.sealed) this.spare.push(a);
+    if (reuse) for (const a of this.sealed) this.spare.push(a);
     this.sealed = kept;
   }
 }

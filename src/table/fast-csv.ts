@@ -40,10 +40,10 @@ async function* fastCsvRead<B>(ctx: BodyContext, sink: RowSink<B>): AsyncGenerat
     const { buf, final } = next;
     offset += next.used;
     carry = null;
-    if (ctx.read.transient === true) {
-      if (spent !== null && (buf === null || buf.buffer !== spent.buffer)) ctx.source.release(spent);
-      sink.recycle?.();
-    }
+    const transient = ctx.read.transient === true;
+    if (transient && spent !== null && (buf === null || buf.buffer !== spent.buffer)) ctx.source.release(spent);
+    // Every turn, so that a sink never keeps track of batches it may not fill again.
+    sink.handedOver?.(transient);
     spent = buf;
     if (buf !== null) {
       const pos = body.consume(buf, final, end - offset);

@@ -13,8 +13,11 @@ export interface RowSink<B> {
   row(buf: Buffer, ascii: boolean, scanner: CsvScanner, line: number): void;
   /** Full batches ready to hand over; with `flush`, the partly filled one too. */
   take(flush: boolean): B[];
-  /** Says no batch taken so far is held any more, so their arrays may be filled again. */
-  recycle?(): void;
+  /**
+   * Called once the batches taken so far are handed over: with `reuse`, the consumer holds none of them
+   * any more and their arrays may be filled again; without, they are the consumer's to keep.
+   */
+  handedOver?(reuse: boolean): void;
   /** The fields whose bounds `row` reads from the scanner (the others may be left stale). */
   readonly fields: readonly number[];
 }

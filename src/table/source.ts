@@ -105,28 +105,33 @@ function stdinStream(options: SourceOptions): RawStream {
  * (benchmark file, one run each), and rebin's system time falls with it.
  */
 export class BufferPool {
-  private readonly free: Buffer[] = [];
-  /** Released buffers kept beyond this many are left to the garbage collector. */
+  /** Buffers remembered as lent, and kept free, at most. */
   private static readonly KEEP = 8;
-  /** The backing stores of the buffers this pool made, so that a stranger's buffer is never taken in. */
-  private readonly own = new WeakSet<ArrayBufferLike>();
+  private readonly free: Buffer[] = [];
+  /**
+   * The buffers handed out most recently, the only ones taken back (a ring: a buffer a reader never
+   * releases drops out of it and is left to the garbage collector; a WeakSet of every buffer made kept
+   * them from being collected promptly and tripled the peak memory of readers that release nothing).
+   */
+  private readonly lent: Array<ArrayBufferLike | null> = new Array<ArrayBufferLike | null>(BufferPool.KEEP).fill(null);
+  private next = 0;
 
   constructor(readonly size: number) {}
 
   /** A buffer of `size` bytes whose contents are undefined. */
   take(): Buffer {
-    const b = this.free.pop();
-    if (b !== undefined) return b;
-    const fresh = Buffer.allocUnsafeSlow(this.size);
-    this.own.add(fresh.buffer);
-    return fresh;
+    const b = this.free.pop() ?? Buffer.allocUnsafeSlow(this.size);
+    this.lent[this.next] = b.buffer;
+    this.next = (this.next + 1) % BufferPool.KEEP;
+    return b;
   }
 
-  /** Takes back the buffer `view` lies in, when this pool made it and does not hold it already. */
+  /** Takes back the buffer `view` lies in, when this pool lent it lately. */
   release(view: Uint8Array): void {
-    const store = view.buffer;
-    if (!this.own.has(store) || this.free.length >= BufferPool.KEEP || this.free.some((b) => b.buffer === store)) return;
-    this.free.push(Buffer.from(store, 0, this.size));
+    const k = this.lent.indexOf(view.buffer);
+    if (k < 0 || this.free.length >= BufferPool.KEEP) return;
+    this.lent[k] = null;
+    this.free.push(Buffer.from(view.buffer, 0, this.size));
   }
 }
 

@@ -152,3 +152,46 @@ describe('TableReader.byteBatches(byteColumns, stringColumns)', () => {
     expect(t.summary().complete).toBe(true);
   });
 });
+
+describe('byteBatches and the reuse of read buffers and batch arrays', () => {
+  // A file of many 4 KiB reads, every record quote-free (the kernel's path) but some with quotes.
+  const lines = ['id,ts,note'];
+  for (let i = 0; i < 20_000; i++) lines.push(`${i},2024-03-${String(1 + (i % 28)).padStart(2, '0')}T08:15:00Z,${i % 50 === 0 ? '"a, ""b"""' : `n${i}`}`);
+  const text = lines.join('\n') + '\n';
+  const want = lines.slice(1).map((l, i) => [i + 2, l.split(',')[1]!]);
+  const strings = (bs: ByteBatch[]): (string | number)[][] =>
+    bs.flatMap((b) => Array.from({ length: b.length }, (_, i) => [b.lines[i]!, byteFieldString(b, 0, i)]));
+
+  it('leaves every batch intact for a consumer that keeps them all (not transient)', async () => {
+    const t = await openTable(tmp.file('keep.csv', text), { chunkSize: 4096, batchSize: 300 });
+    const kept: ByteBatch[] = [];
+    for await (const b of t.byteBatches(['ts'])) kept.push(b);
+    expect(kept.length).toBeGreaterThan(60);
+    expect(strings(kept)).toEqual(want);
+  });
+
+  it('gives the same values to a transient consumer that reads each batch at once, from the first', async () => {
+    const t = await openTable(tmp.file('transient.csv', text), { chunkSize: 4096, batchSize: 300 });
+    const seen: (string | number)[][] = [];
+    for await (const b of t.byteBatches(['ts'], [], { transient: true })) seen.push(...strings([b]));
+    expect(seen).toEqual(want);
+    expect(t.summary().rowsPassed).toBe(20_000);
+  });
+
+  it('gives the same values when the consumer turns transient after keeping its first batches', async () => {
+    const t = await openTable(tmp.file('later.csv', text), { chunkSize: 4096, batchSize: 300 });
+    const read = { transient: false };
+    const first: ByteBatch[] = [];
+    const seen: (string | number)[][] = [];
+    for await (const b of t.byteBatches(['ts'], [], read)) {
+      if (first.length < 5) {
+        first.push(b);
+        if (first.length === 5) {
+          read.transient = true;
+          seen.push(...strings(first));
+        }
+      } else seen.push(...strings([b]));
+    }
+    expect(seen).toEqual(want);
+  });
+});
