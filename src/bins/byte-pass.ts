@@ -49,11 +49,15 @@ async function firstRows(it: AsyncIterator<ByteBatch>, col: number, rows: number
 
 /** Every byte batch of `columns`, the first ones held back until the sample that settles the format is read. */
 async function* withSample(reader: TableReader, columns: readonly string[], col: number, onSample: (sample: string[], held: readonly ByteBatch[]) => void): AsyncGenerator<ByteBatch> {
-  const it = reader.byteBatches(columns)[Symbol.asyncIterator]();
+  // Once the held batches are handed on, each batch is used up before the next is asked for (values are
+  // taken as numbers, rows copied out as CSV bytes): the reader may reuse its buffers from then on.
+  const read = { transient: false };
+  const it = reader.byteBatches(columns, [], read)[Symbol.asyncIterator]();
   try {
     const first = await firstRows(it, col, reader.batchSize);
     onSample(first.sample, first.held);
     yield* first.held;
+    read.transient = true;
     if (first.done) return;
     for (;;) {
       const r = await it.next();

@@ -103,7 +103,9 @@ export async function detectGrain(file: string, options: GrainOptions = {}): Pro
   const aside = new Map([...head].filter(([, c]) => c.notTime));
   const read = names.filter((n) => !aside.has(n));
   const cols = read.map((n) => new GrainColumn(n, dayOrderOf(options), head.get(n)?.inference ?? null));
-  for await (const b of reader.byteBatches(read)) {
+  // Each batch is read to its end before the next is asked for, and no column keeps it (values are
+  // taken as numbers or strings): the reader may reuse its buffers.
+  for await (const b of reader.byteBatches(read, [], { transient: true })) {
     for (let c = 0; c < cols.length; c++) cols[c]!.pushBatch(b, c);
   }
   const byName = new Map(cols.map((c) => [c.name, c]));

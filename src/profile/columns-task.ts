@@ -26,7 +26,8 @@ export async function profileColumns(job: ColumnsJob): Promise<ColumnsResult> {
   const reader = await openTable(job.file, job.table);
   const names = job.columns.map((k) => reader.header[k]!);
   const acc = names.map((n) => new ProfileColumn(n));
-  for await (const b of reader.byteBatches(names)) for (let c = 0; c < acc.length; c++) acc[c]!.pushBatch(b, c);
+  // Batches are read to their end and not kept: transient (see profile.ts).
+  for await (const b of reader.byteBatches(names, [], { transient: true })) for (let c = 0; c < acc.length; c++) acc[c]!.pushBatch(b, c);
   return finishColumns(acc);
 }
 

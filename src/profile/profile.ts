@@ -57,7 +57,8 @@ async function readStrings(reader: TableReader, acc: readonly ProfileColumn[], s
 /** The byte path: ASCII batches are read from their bytes (see ProfileColumn.pushBatch). Columns without an
  *  accumulator (`null`: read by another thread) only feed the shape. */
 async function readBytes(reader: TableReader, acc: ReadonlyArray<ProfileColumn | null>, shape: ShapeTracker): Promise<void> {
-  for await (const b of reader.byteBatches([...reader.header])) {
+  // Batches are read to their end and not kept (values are taken as numbers or strings): transient.
+  for await (const b of reader.byteBatches([...reader.header], [], { transient: true })) {
     shape.observeBytes(b);
     for (let c = 0; c < acc.length; c++) acc[c]?.pushBatch(b, c);
   }
