@@ -62,7 +62,7 @@ export class FastBody<B> {
     const want = wantedMask([...this.wanted]);
     this.want = want ?? 0;
     this.stride = 2 + 2 * this.wanted.length;
-    this.kernel = ctx.delimiter === 44 && ctx.simd && want !== null ? recordKernel() : null;
+    this.kernel = ctx.simd && want !== null ? recordKernel() : null;
   }
 
   /**
@@ -77,9 +77,10 @@ export class FastBody<B> {
     this.sink.begin(buf, ascii);
     this.passed = 0;
     const stop = Math.min(len, limit);
-    // Only the comma has a quote-free loop (for others a variable delimiter compared per byte measured
-    // slower than the scanner's table look-up); -1 sends every record to the general scanner.
-    let quoteAt = this.delimiter === 44 ? firstQuote(buf, 0, len) : -1;
+    // The kernel reads quote-free records for every delimiter; without it only the comma has a quote-free
+    // loop (for others a variable delimiter compared per byte measured slower than the scanner's table
+    // look-up). -1 sends every record to the general scanner.
+    let quoteAt = this.kernel !== null || this.delimiter === 44 ? firstQuote(buf, 0, len) : -1;
     let dense = 0;
     let pos = 0;
     while (pos < stop) {
@@ -265,7 +266,7 @@ export class FastBody<B> {
       const spanEnd = qa - span > RECORD_SPAN ? span + RECORD_SPAN : qa;
       const ahead = spanEnd < len ? 1 : 0;
       input.set(buf.subarray(span, spanEnd + ahead));
-      const n = kernel.records(spanEnd - span, span, want, stride, until, ahead);
+      const n = kernel.records(spanEnd - span, span, want, stride, until, ahead, this.delimiter);
       for (let r = 0, o = 0; r < n; r++, o += stride) {
         const end = output[o]!;
         const f = output[o + 1]!;

@@ -1,5 +1,5 @@
-// The records of quote-free comma-separated text, found by the WebAssembly SIMD kernel of structurals.wat:
-// its commas and line breaks sixteen bytes per step, walked into record ends, field counts and the
+// The records of quote-free delimited text, found by the WebAssembly SIMD kernel of structurals.wat:
+// its delimiters and line breaks sixteen bytes per step, walked into record ends, field counts and the
 // bounds of the wanted fields. fast-body.ts hands it the quote-free stretches the JavaScript word loop
 // read before (that loop stays where no kernel runs, and for files whose wanted fields it cannot hold).
 import { STRUCTURALS_WASM } from './structurals-wasm.js';
@@ -32,7 +32,7 @@ export interface RecordKernel {
   /** OUTPUT as i32: per record `stride` values (end, fields, then start and end per wanted field). */
   readonly output: Int32Array;
   /** Walks input[0, length) (byte i being `base` + i of the caller's buffer); returns records written. */
-  records(length: number, base: number, want: number, stride: number, stop: number, ahead: 0 | 1): number;
+  records(length: number, base: number, want: number, stride: number, stop: number, ahead: 0 | 1, delimiter: number): number;
 }
 
 let shared: RecordKernel | null | undefined;

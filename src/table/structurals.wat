@@ -1,5 +1,6 @@
-;; The records of a quote-free stretch of comma-separated text, found with WebAssembly SIMD: commas (44),
-;; line feeds (10) and carriage returns (13) are found sixteen bytes at a time, and walked into records.
+;; The records of a quote-free stretch of delimited text, found with WebAssembly SIMD: delimiters (the
+;; comma, tab, semicolon, pipe or another ASCII byte), line feeds (10) and carriage returns (13) are found
+;; sixteen bytes at a time, and walked into records.
 ;; For each record the kernel writes where it ends, how many fields it has and the bounds of the fields
 ;; the caller wants. Compiled by `npm run wasm` into structurals-wasm.ts; test/wasm checks the two agree
 ;; and holds the kernel to a plain JavaScript model.
@@ -14,13 +15,13 @@
 (module
   (memory (export "memory") 80)
 
-  ;; Walks input[0, length) into records; returns how many it wrote. A record unfinished at `length` is
+  ;; Walks input[0, length) into records, fields split at byte `delim`; returns how many it wrote. A record unfinished at `length` is
   ;; carried in STATE to the next call. Stops early, with status 1, at a CR that is the input's last byte
   ;; when `ahead` is 0 (no byte follows in the caller's buffer, so CR or CRLF cannot be told yet), and with
   ;; status 2 once a record ends at or past `stop`. Reads up to 15 bytes of slack past `length`, and the
   ;; byte at `length` when `ahead` is 1.
   (func (export "records") (param $length i32) (param $base i32) (param $want i32) (param $stride i32)
-        (param $stop i32) (param $ahead i32) (result i32)
+        (param $stop i32) (param $ahead i32) (param $delim i32) (result i32)
     (local $p i32) (local $m i32) (local $v v128) (local $left i32) (local $s i32) (local $abs i32) (local $c i32)
     (local $rec i32) (local $field i32) (local $f i32) (local $skip i32) (local $slot i32)
     (local $o i32) (local $n i32) (local $end i32) (local $status i32)
@@ -40,7 +41,7 @@
           (i8x16.bitmask
             (v128.or
               (v128.or
-                (i8x16.eq (local.get $v) (i8x16.splat (i32.const 44)))
+                (i8x16.eq (local.get $v) (i8x16.splat (local.get $delim)))
                 (i8x16.eq (local.get $v) (i8x16.splat (i32.const 10))))
               (i8x16.eq (local.get $v) (i8x16.splat (i32.const 13))))))
         ;; The last block: keep only the bits of bytes before `length`.
@@ -68,7 +69,7 @@
                     (i32.store offset=12 (i32.add (local.get $o) (i32.shl (local.get $slot) (i32.const 3))) (local.get $abs))
                     (local.set $slot (i32.add (local.get $slot) (i32.const 1)))))))
             (local.set $f (i32.add (local.get $f) (i32.const 1)))
-            (if (i32.eq (local.get $c) (i32.const 44))
+            (if (i32.eq (local.get $c) (local.get $delim))
               (then
                 (local.set $field (i32.add (local.get $abs) (i32.const 1)))
                 (br $bit)))

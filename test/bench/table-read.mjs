@@ -56,10 +56,11 @@ async function readTable(file, engine, columns) {
   return n;
 }
 
-async function readBytes(file, columns) {
-  const t = await openTable(file);
+/** Byte batches of `columns`; `simd` false keeps to the JavaScript word loop, `transient` lets buffers be reused. */
+async function readBytes(file, columns, { simd = true, transient = false } = {}) {
+  const t = await openTable(file, { simd });
   let n = 0;
-  for await (const b of t.byteBatches(columns)) n += b.length;
+  for await (const b of t.byteBatches(columns, [], { transient })) n += b.length;
   const s = t.summary();
   if (s.rowsRead !== n || s.rowsRejected !== 0) throw new Error(`accounting mismatch ${JSON.stringify(s)}`);
   return n;
@@ -124,6 +125,10 @@ await measure('fast path, all 4 columns', big, () => readTable(big, 'fast', ['ts
 await measure('fast path, ts only', big, () => readTable(big, 'fast', ['ts']));
 await measure('byte batches, all 4 columns', big, () => readBytes(big, ['ts', 'site', 'age', 'amount']));
 await measure('byte batches, ts only', big, () => readBytes(big, ['ts']));
+await measure('byte batches, ts only, transient', big, () => readBytes(big, ['ts'], { transient: true }));
+await measure('byte batches, ts only, transient, no SIMD', big, () => readBytes(big, ['ts'], { transient: true, simd: false }));
+await measure('byte batches, all 4, transient, no SIMD', big, () => readBytes(big, ['ts', 'site', 'age', 'amount'], { transient: true, simd: false }));
+await measure('byte batches, all 4 columns, transient', big, () => readBytes(big, ['ts', 'site', 'age', 'amount'], { transient: true }));
 await measure('byte batches, ts only, tab-separated', tabbed, () => readBytes(tabbed, ['ts']));
 await measure('byte batches, ts only, every field quoted', quoted, () => readBytes(quoted, ['ts']));
 await measure('ts parsed from strings', big, () => parseTimes(big, false));

@@ -19,7 +19,7 @@ interface Found {
 }
 
 /** The model: records of buf[pos, regionEnd) in the order RFC 4180 reads them, as the kernel should report. */
-function model(buf: Uint8Array, pos: number, regionEnd: number, wanted: number[], stop: number): Found {
+function model(buf: Uint8Array, pos: number, regionEnd: number, wanted: number[], stop: number, delimiter = COMMA): Found {
   const records: Found['records'] = [];
   let field = pos;
   let f = 0;
@@ -27,10 +27,10 @@ function model(buf: Uint8Array, pos: number, regionEnd: number, wanted: number[]
   let skip = -1;
   for (let i = pos; i < regionEnd; i++) {
     const c = buf[i]!;
-    if ((c !== COMMA && c !== LF && c !== CR) || i === skip) continue;
+    if ((c !== delimiter && c !== LF && c !== CR) || i === skip) continue;
     if (wanted.includes(f)) bounds.push(field, i);
     f++;
-    if (c === COMMA) {
+    if (c === delimiter) {
       field = i + 1;
       continue;
     }
@@ -52,7 +52,7 @@ function model(buf: Uint8Array, pos: number, regionEnd: number, wanted: number[]
 }
 
 /** The kernel driven as fast-body.ts drives it, over spans of the given lengths (cycled). */
-function kernel(buf: Uint8Array, pos: number, regionEnd: number, wanted: number[], stop: number, spans: number[]): Found {
+function kernel(buf: Uint8Array, pos: number, regionEnd: number, wanted: number[], stop: number, spans: number[], delimiter = COMMA): Found {
   const k = recordKernel()!;
   const want = wantedMask(wanted)!;
   const stride = 2 + 2 * wanted.length;
@@ -65,7 +65,7 @@ function kernel(buf: Uint8Array, pos: number, regionEnd: number, wanted: number[
     const spanEnd = Math.min(regionEnd, span + spans[turn++ % spans.length]!);
     const ahead = spanEnd < buf.length ? 1 : 0;
     k.input.set(buf.subarray(span, spanEnd + ahead));
-    const n = k.records(spanEnd - span, span, want, stride, stop, ahead);
+    const n = k.records(spanEnd - span, span, want, stride, stop, ahead, delimiter);
     for (let r = 0; r < n; r++) {
       const o = r * stride;
       records.push({ end: k.output[o]!, fields: k.output[o + 1]!, bounds: [...k.output.subarray(o + 2, o + stride)] });
@@ -115,22 +115,24 @@ describe('the WebAssembly record kernel', () => {
 
   const bytes = fc.uint8Array({ maxLength: 300, size: 'max' }).chain((raw) =>
     // Half the bytes drawn from CSV's own (commas most), so records have several fields.
-    fc.array(fc.constantFrom(COMMA, COMMA, COMMA, COMMA, LF, CR, 0x61, 0x22, 0xff, 0x00, 0x20), { minLength: raw.length, maxLength: raw.length })
+    fc.array(fc.constantFrom(COMMA, COMMA, COMMA, 9, 9, 59, 124, LF, CR, 0x61, 0x22, 0xff, 0x00, 0x20), { minLength: raw.length, maxLength: raw.length })
       .map((pick) => Uint8Array.from(raw, (b, i) => (b % 2 === 0 ? pick[i]! : b))));
 
-  it('finds the records the model finds, for any bytes, spans, wanted fields, region and stop', () => {
+  it('finds the records the model finds, for any bytes, delimiter, spans, wanted fields, region and stop', () => {
     fc.assert(
       fc.property(
         bytes,
         fc.oneof(fc.uniqueArray(fc.nat(3), { minLength: 1, maxLength: 3 }), fc.uniqueArray(fc.nat(31), { maxLength: 8 })).map((w) => w.sort((a, b) => a - b)),
         fc.array(fc.integer({ min: 1, max: 70 }), { minLength: 1, maxLength: 5 }),
         fc.nat(), fc.nat(), fc.option(fc.nat(), { nil: undefined }),
-        (buf, wanted, spans, a, b, stopAt) => {
+        // The delimiters the sniffer knows: comma, tab, semicolon, pipe.
+        fc.constantFrom(COMMA, 9, 59, 124),
+        (buf, wanted, spans, a, b, stopAt, delimiter) => {
           const pos = buf.length === 0 ? 0 : a % (buf.length + 1);
           const regionEnd = pos + (buf.length - pos === 0 ? 0 : b % (buf.length - pos + 1));
           const stop = stopAt === undefined ? 0x7fffffff : pos + (stopAt % (buf.length + 2));
-          const want = defined(model(buf, pos, regionEnd, wanted, stop), wanted);
-          expect(defined(kernel(buf, pos, regionEnd, wanted, stop, spans), wanted)).toEqual(want);
+          const want = defined(model(buf, pos, regionEnd, wanted, stop, delimiter), wanted);
+          expect(defined(kernel(buf, pos, regionEnd, wanted, stop, spans, delimiter), wanted)).toEqual(want);
         },
       ),
       { numRuns: 3000 },
