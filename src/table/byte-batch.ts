@@ -77,6 +77,40 @@ export class ByteBatchBuilder implements RowSink<ByteBatch> {
     if (this.length === this.size) this.seal();
   }
 
+  /** True when rows may come in blocks from the record kernel (no string columns to decode). */
+  get takesBlocks(): boolean {
+    return this.stringColumns.length === 0;
+  }
+
+  /**
+   * Takes `count` records from the record kernel's output (`stride` i32 per record from offset `o`: end,
+   * field count, then start and end of each wanted field), all whole, quote-free rows on consecutive lines
+   * from `line`. `wanted` lists the kernel's fields. What `row` does for each, a column at a time.
+   */
+  kernelRows(output: Int32Array, o: number, count: number, stride: number, wanted: Int32Array, line: number): void {
+    const cols = this.byteColumns;
+    while (count > 0) {
+      const n = this.length;
+      const m = Math.min(count, this.size - n);
+      for (let c = 0; c < cols.length; c++) {
+        const at = o + 2 + 2 * wanted.indexOf(cols[c]!);
+        const starts = this.starts[c]!, ends = this.ends[c]!;
+        for (let r = 0, q = at; r < m; r++, q += stride) {
+          starts[n + r] = output[q]!;
+          ends[n + r] = output[q + 1]!;
+        }
+        this.decoded[c]!.fill(0, n, n + m);
+      }
+      const lines = this.lines;
+      for (let r = 0; r < m; r++) lines[n + r] = line + r;
+      this.length = n + m;
+      if (this.length === this.size) this.seal();
+      count -= m;
+      o += m * stride;
+      line += m;
+    }
+  }
+
   /** Copies the field buf[s, e) with each doubled quote made single into the side buffer. */
   private unquote(buf: Buffer, s: number, e: number, c: number, n: number): void {
     if (this.sideLength + (e - s) > this.side.length) {

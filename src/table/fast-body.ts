@@ -267,6 +267,28 @@ export class FastBody<B> {
       const ahead = spanEnd < len ? 1 : 0;
       input.set(buf.subarray(span, spanEnd + ahead));
       const n = kernel.records(spanEnd - span, span, want, stride, until, ahead, this.delimiter);
+      if (bytes !== null && bytes.takesBlocks) {
+        // Runs of accepted records go to the batch builder a block at a time.
+        let from = 0;
+        for (let r = 0, o = 0; r < n; r++, o += stride) {
+          const end = output[o]!;
+          const f = output[o + 1]!;
+          const c0 = buf[record]!;
+          if (!(f === width && !(f === 1 && (c0 === LF || c0 === CR)) && (valid || isUtf8(buf.subarray(record, end))))) {
+            if (r > from) bytes.kernelRows(output, from * stride, r - from, stride, this.wanted, line - (r - from));
+            passed += r - from;
+            from = r + 1;
+            this.kernelOther(buf, record, line, valid);
+          }
+          line++;
+          record = end;
+        }
+        if (n > from) bytes.kernelRows(output, from * stride, n - from, stride, this.wanted, line - (n - from));
+        passed += n - from;
+        if (state[5] !== KernelStop.Spent) break;
+        span = spanEnd;
+        continue;
+      }
       for (let r = 0, o = 0; r < n; r++, o += stride) {
         const end = output[o]!;
         const f = output[o + 1]!;

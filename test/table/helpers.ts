@@ -3,7 +3,7 @@ import { expect } from 'vitest';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { openTable } from '../../src/table/index.js';
+import { byteFieldString, openTable } from '../../src/table/index.js';
 import type { ReadSummary, TableOptions } from '../../src/table/index.js';
 
 /** A fresh temporary folder; call the returned cleanup in afterAll. */
@@ -37,6 +37,18 @@ export async function readAll(file: string, options: TableOptions = {}, columns?
     expect(b.lines.length).toBe(b.length);
     for (const v of b.values) expect(v.length).toBe(b.length);
     for (let i = 0; i < b.length; i++) rows.push([b.lines[i]!, ...b.values.map((v) => v[i]!)]);
+  }
+  return { header: t.header, delimiter: t.delimiter, format: t.format, rows, summary: t.summary() };
+}
+
+/** Reads the requested columns (all by default) as byte batches, each field decoded to a string. */
+export async function readAllBytes(file: string, options: TableOptions = {}, columns?: readonly string[]): Promise<ReadResult> {
+  const t = await openTable(file, options);
+  const cols = columns ?? t.header;
+  const rows: (string | number)[][] = [];
+  for await (const b of t.byteBatches(cols)) {
+    expect(b.lines.length).toBe(b.length);
+    for (let i = 0; i < b.length; i++) rows.push([b.lines[i]!, ...cols.map((_, c) => byteFieldString(b, c, i))]);
   }
   return { header: t.header, delimiter: t.delimiter, format: t.format, rows, summary: t.summary() };
 }
