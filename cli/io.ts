@@ -1,7 +1,7 @@
 // What a command may touch of the outside world; only cli/main.ts binds it to `process`.
 
 export interface OutStream {
-  write(text: string): unknown;
+  write(chunk: string | Uint8Array): unknown;
   isTTY?: boolean;
   columns?: number;
 }

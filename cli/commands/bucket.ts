@@ -168,9 +168,9 @@ async function withInput(file: string, ctx: CommandContext, body: (path: string)
   }
 }
 
-/** Rows as CSV bytes to an output target (which takes text: chunks end on whole rows, so whole UTF-8 characters). */
+/** Rows as CSV bytes to an output target (chunks end on whole rows, so whole UTF-8 characters). */
 function targetRows(out: OutputTarget, f: BucketFlags): CsvRowsOutput {
-  return { ...rowNames(f), write: (chunk) => out.write(Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength).toString('utf8')) };
+  return { ...rowNames(f), write: (chunk) => out.writeBytes(chunk) };
 }
 
 function rowNames(f: BucketFlags): Omit<CsvRowsOutput, 'write'> {

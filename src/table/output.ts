@@ -15,6 +15,11 @@ export interface OutputTarget {
   readonly closed: boolean;
   /** Queues text; resolves when it may continue (after a flush when the buffer is full). */
   write(text: string): Promise<void>;
+  /**
+   * Writes bytes after the text queued so far (whole UTF-8 characters; large outputs such as bucket's rows,
+   * which skip the round trip through a string); `chunk` may be reused once the promise resolves.
+   */
+  writeBytes(chunk: Uint8Array): Promise<void>;
   /** Flushes and, for a file, moves the temporary file over the target. */
   commit(): Promise<void>;
   /** Discards everything written; an existing target file is left as it was. Safe to call twice. */
@@ -23,10 +28,12 @@ export interface OutputTarget {
 
 /** The parts of a stream openOutput uses: CliIO's stdout, or a Node Writable. */
 export interface StdoutLike {
-  write(text: string, cb?: (err?: Error | null) => void): unknown;
+  write(chunk: string | Uint8Array, cb?: (err?: Error | null) => void): unknown;
   once?(event: 'drain' | 'close' | 'error', listener: (...args: never[]) => void): unknown;
   removeListener?(event: 'drain' | 'close' | 'error', listener: (...args: never[]) => void): unknown;
   on?(event: 'error', listener: (err: NodeJS.ErrnoException) => void): unknown;
+  /** Bytes queued and not yet written (a Node Writable's). */
+  readonly writableLength?: number;
 }
 
 export interface OutputOptions {
@@ -94,11 +101,19 @@ function stdoutTarget(out: StdoutLike): OutputTarget {
     if (closed || pending === '') return;
     const text = pending;
     pending = '';
+    await send(text);
+  }
+  async function send(chunk: string | Uint8Array): Promise<void> {
     try {
-      const ok = out.write(text, (e) => {
+      let written = (): void => undefined;
+      const done = new Promise<void>((res) => { written = res; });
+      const ok = out.write(chunk, (e) => {
         if (e && isPipeClosed(e)) closed = true;
+        written();
       });
       if (ok === false) await drained(out);
+      // Bytes the stream still holds (a pipe not yet drained) must be written before their buffer is reused.
+      else if (typeof chunk !== 'string' && (out.writableLength ?? 0) > 0) await done;
     } catch (e) {
       if (!isPipeClosed(e)) throw new QuernError('E_OUTPUT', `standard output: ${(e as Error).message}`);
       closed = true;
@@ -114,6 +129,11 @@ function stdoutTarget(out: StdoutLike): OutputTarget {
       pending += text;
       if (pending.length >= FLUSH_AT) await flush();
     },
+    async writeBytes(chunk) {
+      if (closed) return;
+      await flush();
+      if (!closed && chunk.byteLength > 0) await send(chunk);
+    },
     commit: flush,
     async abort() {
       pending = '';
@@ -125,7 +145,7 @@ function stdoutTarget(out: StdoutLike): OutputTarget {
  * Text queued for a file handle and written in blocks of FLUSH_AT characters; a failed write calls
  * `fail` (which aborts the target) and throws one E_OUTPUT line.
  */
-function textQueue(shown: string, handle: FileHandle, fail: () => Promise<void>): { add(text: string): Promise<void>; flush(): Promise<void>; drop(): void } {
+function textQueue(shown: string, handle: FileHandle, fail: () => Promise<void>): { add(text: string): Promise<void>; bytes(chunk: Uint8Array): Promise<void>; flush(): Promise<void>; drop(): void } {
   let pending = '';
   const flush = async (): Promise<void> => {
     if (pending === '') return;
@@ -142,6 +162,15 @@ function textQueue(shown: string, handle: FileHandle, fail: () => Promise<void>)
     async add(text) {
       pending += text;
       if (pending.length >= FLUSH_AT) await flush();
+    },
+    async bytes(chunk) {
+      await flush();
+      try {
+        for (let at = 0; at < chunk.byteLength;) at += (await handle.write(chunk, at, chunk.byteLength - at)).bytesWritten;
+      } catch (e) {
+        await fail();
+        throw outputError(shown, e);
+      }
     },
     flush,
     drop: () => {
@@ -166,6 +195,10 @@ async function deviceTarget(shown: string, target: string): Promise<OutputTarget
     async write(text) {
       if (!isOpen) throw new QuernError('E_INTERNAL', `${shown}: written after it was closed`);
       await queue.add(text);
+    },
+    async writeBytes(chunk) {
+      if (!isOpen) throw new QuernError('E_INTERNAL', `${shown}: written after it was closed`);
+      await queue.bytes(chunk);
     },
     async commit() {
       if (!isOpen) return;
@@ -225,6 +258,10 @@ async function fileTarget(shown: string, target: string): Promise<OutputTarget> 
     async write(text) {
       if (state !== 'open') throw new QuernError('E_INTERNAL', `${shown}: written after ${state === 'committed' ? 'commit' : 'abort'}`);
       await queue.add(text);
+    },
+    async writeBytes(chunk) {
+      if (state !== 'open') throw new QuernError('E_INTERNAL', `${shown}: written after ${state === 'committed' ? 'commit' : 'abort'}`);
+      await queue.bytes(chunk);
     },
     async commit() {
       if (state !== 'open') return;

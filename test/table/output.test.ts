@@ -23,6 +23,18 @@ describe('openOutput(path) to a file', () => {
     expect(readdirSync(tmp.dir).filter((n) => n.endsWith('.quern-tmp'))).toEqual([]);
   });
 
+  it('writes bytes in order with the text around them', async () => {
+    const target = join(tmp.dir, 'bytes.csv');
+    const out = await openOutput(target);
+    await out.write('a,b\n');
+    const chunk = Buffer.from('1,2\n3,4\n');
+    await out.writeBytes(chunk);
+    chunk.fill(0x7a); // reusable once the promise resolved
+    await out.write('5,6\n');
+    await out.commit();
+    expect(readFileSync(target, 'utf8')).toBe('a,b\n1,2\n3,4\n5,6\n');
+  });
+
   it('leaves an existing file intact after abort()', async () => {
     const target = tmp.file('keep.csv', 'precious\n');
     const out = await openOutput(target);
@@ -106,6 +118,29 @@ describe("openOutput('-', { stdout })", () => {
     await writing;
     await new Promise((r) => setImmediate(r));
     expect(received).toBe(700_000);
+  });
+
+  it('writes bytes after the queued text, and a reused chunk reaches a slow reader as it was when written', async () => {
+    // A Writable that takes each chunk later (as a pipe to a slow reader does) and keeps it un-copied.
+    const got: Buffer[] = [];
+    const lazy = new Writable({
+      highWaterMark: 1 << 22,
+      write(chunk: Buffer, _enc, cb) {
+        setTimeout(() => { got.push(Buffer.from(chunk)); cb(); }, 5);
+      },
+    });
+    const out = await openOutput('-', { stdout: lazy });
+    await out.write('head\n');
+    const chunk = Buffer.alloc(100_000);
+    for (let i = 0; i < 5; i++) {
+      chunk.fill(0x61 + i); // the writer refills the same buffer, as CsvByteWriter does
+      await out.writeBytes(chunk);
+    }
+    await out.write('tail\n');
+    await out.commit();
+    await new Promise<void>((r) => lazy.end(r));
+    const expected = 'head\n' + ['a', 'b', 'c', 'd', 'e'].map((c) => c.repeat(100_000)).join('') + 'tail\n';
+    expect(Buffer.concat(got).toString('latin1')).toBe(expected);
   });
 
   it('needs a stream', async () => {
