@@ -134,11 +134,34 @@ export interface AssignSpec {
   output?: CsvRowsOutput;
 }
 
+/** What assignBatch keeps from batch to batch: the small whole numbers' buckets, and counts made with them. */
+interface SmallWholes { bucket: Int32Array; counts: Float64Array }
+
 /** Counts (and writes) the rows of one byte batch. */
-function assignBatch(b: ByteBatch, col: number, p: NumberBytesParser, tally: BucketTally, out: ParsedNumber, ks: Int32Array): void {
-  const starts = b.starts[col]!, ends = b.ends[col]!;
+function assignBatch(b: ByteBatch, col: number, p: NumberBytesParser, tally: BucketTally, out: ParsedNumber, ks: Int32Array, small: SmallWholes): void {
+  const starts = b.starts[col]!, ends = b.ends[col]!, decoded = b.decoded[col]!;
+  const { bucket, counts } = small;
   for (let i = 0; i < b.length; i++) {
-    const st = p.parse(fieldBuf(b, col, i), starts[i]!, ends[i]!, out);
+    const buf = decoded[i] === 1 ? b.side : b.buf;
+    const s = starts[i]!, e = ends[i]!;
+    // Digits only (at most 4: below SMALL_WHOLE): what p.parse reads as that whole number, looked up.
+    if (e > s && e - s <= 4) {
+      let v = 0, j = s;
+      for (; j < e; j++) {
+        const d = buf[j]! - 48;
+        if (d < 0 || d > 9) break;
+        v = v * 10 + d;
+      }
+      if (j === e) {
+        const k = bucket[v]!;
+        if (k >= 0) {
+          counts[k]!++;
+          ks[i] = k;
+          continue;
+        }
+      }
+    }
+    const st = p.parse(buf, s, e, out);
     let k = st === 'ok' && !out.percent ? tally.tryCount(out.value) : NOT_COUNTED;
     if (k === NOT_COUNTED) k = tally.record(b.lines[i]!, byteFieldString(b, col, i), out);
     ks[i] = k;
@@ -153,18 +176,20 @@ export async function assignBytes(reader: TableReader, spec: AssignSpec): Promis
   const columns = spec.output === undefined ? [spec.value] : [...reader.header];
   const col = spec.output === undefined ? 0 : reader.columnIndex(spec.value);
   const out = emptyParsedNumber();
-  let state: { set: BucketSet; tally: BucketTally; reading: NumberReading; bytes: NumberBytesParser; rows: CsvRowEncoder | null } | null = null;
+  let state: { set: BucketSet; tally: BucketTally; reading: NumberReading; bytes: NumberBytesParser; rows: CsvRowEncoder | null; small: SmallWholes } | null = null;
   const start = (sample: string[]): void => {
     const reading = readingFor(sample, spec.given);
     const set = spec.makeSet(sampleIntegers(sample, reading.parser));
     const rows = spec.output === undefined ? null : new CsvRowEncoder(spec.output, reader, set, spec.value);
-    state = { set, tally: new BucketTally(set, spec.maxExamples), reading, bytes: makeNumberBytesParser(reading.parser), rows };
+    const tally = new BucketTally(set, spec.maxExamples);
+    const small = { bucket: tally.smallWholes(), counts: new Float64Array(set.buckets.length) };
+    state = { set, tally, reading, bytes: makeNumberBytesParser(reading.parser), rows, small };
   };
   let ks = new Int32Array(reader.batchSize);
   for await (const b of withSample(reader, columns, col, start)) {
     const s = state!;
     if (ks.length < b.length) ks = new Int32Array(b.length);
-    assignBatch(b, col, s.bytes, s.tally, out, ks);
+    assignBatch(b, col, s.bytes, s.tally, out, ks, s.small);
     if (s.rows !== null) {
       s.rows.batch(b, ks);
       if (s.rows.full) await s.rows.flush();
@@ -172,6 +197,7 @@ export async function assignBytes(reader: TableReader, spec: AssignSpec): Promis
   }
   if (state === null) start([]);
   const s = state!;
+  s.tally.addCounts(s.small.counts);
   if (s.rows !== null) await s.rows.end();
   return { set: s.set, tally: s.tally, reading: s.reading };
 }

@@ -74,6 +74,9 @@ export class CsvByteWriter {
     return this.buf;
   }
 
+  /** The buffer being filled (valid until the next reserve). */
+  get bytes(): Buffer { return this.buf; }
+
   /** True once the buffer holds a chunk's worth: call flush() at the next row boundary. */
   get full(): boolean { return this.length >= this.chunkSize; }
 

@@ -56,6 +56,8 @@ export interface TallyPartial {
 
 /** tryCount's answer when the value needs `record` (outside the buckets, or a note to take). */
 export const NOT_COUNTED = -9;
+/** How many whole numbers from 0 up smallWholes answers for. */
+export const SMALL_WHOLE = 10_000;
 
 /** Accumulates counts for one bucket set; `record` returns the bucket index or a negative outcome. */
 export class BucketTally {
@@ -77,6 +79,24 @@ export class BucketTally {
   private note(o: Outcome, line: number, value: string): void {
     o.count++;
     if (o.examples.length < this.maxExamples) o.examples.push({ line, value: value.length > 80 ? `${value.slice(0, 79)}…` : value });
+  }
+
+  /**
+   * The bucket tryCount gives each whole number 0..SMALL_WHOLE-1, NOT_COUNTED where it counts none: a hot
+   * loop looks a small whole number up here instead of searching the edges, then counts it by addCounts.
+   */
+  smallWholes(): Int32Array {
+    const t = new Int32Array(SMALL_WHOLE);
+    for (let v = 0; v < SMALL_WHOLE; v++) {
+      const k = this.bucketer.assign(v);
+      t[v] = k >= 0 ? k : NOT_COUNTED;
+    }
+    return t;
+  }
+
+  /** Adds counts per bucket index that a caller made from smallWholes. */
+  addCounts(counts: Float64Array): void {
+    for (let k = 0; k < counts.length; k++) this.counts[k]! += counts[k]!;
   }
 
   /**

@@ -19,7 +19,7 @@ const pick = <T,>(r: () => number, xs: readonly T[]): T => xs[Math.floor(r() * x
 
 // Values on and around the edges, empty cells, missing markers, signs, exponents, percent signs,
 // thousands separators, words and junk: each kind the number parser treats apart (src/numbers).
-const VALUES_DOT = ['0', '4', '5', '14.5', '15', '-3', '65', '99', '120', '', ' ', 'NA', '-', '1e1', '2.5E1', '12%', '1,234', '1,234.5', 'abc', 'NaN', 'Infinity', '-0', '007', '4.999', '45 ', ' 25', '+5', '=1+2', '"quoted 5"', '1e400'];
+const VALUES_DOT = ['0', '4', '5', '14.5', '15', '-3', '65', '99', '120', '', ' ', 'NA', '-', '1e1', '2.5E1', '12%', '1,234', '1,234.5', 'abc', 'NaN', 'Infinity', '-0', '007', '4.999', '45 ', ' 25', '+5', '=1+2', '"quoted 5"', '1e400', '9999', '1000', '0000', '0065', '00015', '12345'];
 const VALUES_COMMA = ['0', '4', '5', '14,5', '15', '-3', '65', '99,9', '', 'NA', '1.234,5', '2,5', 'x', '12%', '45,0'];
 const TEXTS = ['plain', 'with,comma', 'with "quotes"', 'line\nbreak', 'cr\rinside', '=cmd()', '+x', '-y', '@at', '\ttab', 'café', '→ arrow', '', ' spaced '];
 
@@ -134,6 +134,11 @@ describe('bucket byte path against the string path (differential)', () => {
           const got = await bucketTableCsv(open, o, { neutraliseFormulas: neutralise, write: async (b) => { chunks.push(Buffer.from(b)); } });
           expect(Buffer.concat(chunks).toString('utf8')).toBe(ref.text());
           expect(got).toEqual(refResult);
+          // Whole rows copied in JavaScript instead of by the WebAssembly loop (row-gather.wat).
+          const js: Buffer[] = [];
+          const gotJs = await bucketTableCsv(open, o, { neutraliseFormulas: neutralise, wasm: false, write: async (b) => { js.push(Buffer.from(b)); } });
+          expect(Buffer.concat(js).toString('utf8')).toBe(ref.text());
+          expect(gotJs).toEqual(refResult);
         }
       });
     });
