@@ -41,7 +41,7 @@ export class DistinctStore {
     const table = this.table;
     if (table !== null) {
       if (table.add(ms, offset, line, src, i, this.cap) !== 'full') return;
-      this.overflow(table.values());
+      this.overflow(table);
     }
     const wall = offset !== offset ? ms : ms + offset * 60_000;
     this.stream!.addRow(wall, line, src, i);
@@ -57,7 +57,7 @@ export class DistinctStore {
     if (table !== null) {
       from = table.addRows(p, 0, this.cap);
       if (from === p.length) return;
-      this.overflow(table.values());
+      this.overflow(table);
     }
     this.stream!.addRows(p, from);
     const sketch = this.sketch!;
@@ -78,17 +78,19 @@ export class DistinctStore {
     return { count: this.sketch!.estimate(), exact: false };
   }
 
-  private overflow(values: readonly StoredValue[]): void {
-    this.stream = new BoundaryCounter();
-    this.sketch = new HyperLogLog();
-    for (const v of values) {
-      this.stream.add(v.wall, v.weight, false, v.line, v.text);
-      this.sketch.addNumber(v.ms);
-      for (let i = 0; i < v.weight; i++) {
+  private overflow(table: ValueTable): void {
+    const stream = new BoundaryCounter();
+    const sketch = new HyperLogLog();
+    table.forEach((ms, offset, weight, line, text, wall) => {
+      stream.add(wall, weight, false, line, text);
+      sketch.addNumber(ms);
+      for (let i = 0; i < weight; i++) {
         const slot = this.slot();
-        if (slot >= 0) this.reservoir[slot] = { ...v, weight: 1 };
+        if (slot >= 0) this.reservoir[slot] = { ms, offset, weight: 1, line, text, wall };
       }
-    }
+    });
+    this.stream = stream;
+    this.sketch = sketch;
     this.table = null;
   }
 

@@ -92,6 +92,15 @@ export class ValueTable {
     if (2 * this.size > this.slots.length) this.rehash();
   }
 
+  /** Calls `visit` with each distinct value in order of first appearance, making no object per value. */
+  forEach(visit: (ms: number, offset: number, weight: number, line: number, text: string, wall: number) => void): void {
+    for (let e = 0; e < this.size; e++) {
+      const ms = this.ms[e]!;
+      const offset = this.offset[e]!;
+      visit(ms, offset, this.weight[e]!, this.line[e]!, this.text[e]!, Number.isNaN(offset) ? ms : ms + offset * 60_000);
+    }
+  }
+
   /** The distinct values in order of first appearance, with their rows. */
   values(): StoredValue[] {
     const out: StoredValue[] = [];
