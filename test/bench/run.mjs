@@ -116,6 +116,8 @@ function approaches(file, rows) {
     { name: 'quern profile', run: q('profile', file, '--json') },
     { name: 'quern profile --threads 2', run: q('profile', file, '--json', '--threads', '2') },
     { name: 'quern bucket --edges (fixed)', run: q('bucket', file, '--value', 'age', '--edges', '0,5,15,25,45,65', '--open-high', '--out', '/dev/null') },
+    { name: 'quern bucket --edges (fixed) to a file', run: q('bucket', file, '--value', 'age', '--edges', '0,5,15,25,45,65', '--open-high', '--out', out('bucket')) },
+    { name: 'quern bucket --edges --summary (counts only)', run: q('bucket', file, '--value', 'age', '--edges', '0,5,15,25,45,65', '--open-high', '--summary') },
     { name: 'quern bucket --method quantile', run: q('bucket', file, '--value', 'amount', '--method', 'quantile', '--bins', '5', '--out', '/dev/null') },
     { name: 'quern bucket --method ckmeans', run: q('bucket', file, '--value', 'amount', '--method', 'ckmeans', '--bins', '5', '--out', '/dev/null') },
   ];

@@ -39,4 +39,30 @@ describe('CSV cells as bytes (src/bins/csv-bytes.ts) against csvCell (src/table/
       expect(await cellOf(value, neutralise)).toBe(csvCell(value, { neutraliseFormulas: neutralise }));
     }), { numRuns: RUNS });
   });
+
+  it('CsvByteWriter fills a second buffer while a chunk is written, and never touches a chunk before its write resolves', async () => {
+    const got: string[] = [];
+    // A slow sink that reads each chunk only after a delay, as a busy disk or pipe would.
+    const w = new CsvByteWriter((chunk) => new Promise<void>((res) => setTimeout(() => { got.push(Buffer.from(chunk).toString('latin1')); res(); }, 3)), false, 16);
+    const rows: string[] = [];
+    for (let i = 0; i < 40; i++) {
+      const row = `${String.fromCharCode(97 + (i % 26)).repeat(10)}${i}\n`;
+      rows.push(row);
+      const b = Buffer.from(row, 'latin1');
+      w.raw(b, 0, b.length);
+      if (w.full) await w.flush();
+    }
+    await w.end();
+    expect(got.join('')).toBe(rows.join(''));
+    expect(got.length).toBeGreaterThan(10); // many chunks, each written while the next was filled
+  });
+
+  it('CsvByteWriter throws a failed write at the next flush or at end', async () => {
+    let calls = 0;
+    const w = new CsvByteWriter(async () => { calls++; if (calls === 1) throw new Error('disk full'); }, false, 4);
+    w.raw(Buffer.from('abcdef'), 0, 6);
+    await w.flush(); // the write starts; its failure comes later
+    w.raw(Buffer.from('ghijkl'), 0, 6);
+    await expect(w.end()).rejects.toThrow('disk full');
+  });
 });
