@@ -3,7 +3,7 @@ import { QuernError } from '../src/errors.js';
 
 /**
  * Help text of --threads. One thread is the default: on the two-core machine of the benchmark, two threads
- * cut the wall time of a 10M-row rebin by about a tenth for half as much CPU again and 50 MB more memory
+ * made a 10M-row profile about a fifth faster but rebin about two fifths slower, for more CPU and memory
  * (DEVELOPERS.md, Performance), so more threads are for a machine with idle cores.
  */
 export const THREADS_HELP = 'threads reading a plain CSV/TSV file of 32 MB or more (default 1; worth raising only when cores are idle)';
