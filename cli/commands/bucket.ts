@@ -231,6 +231,8 @@ async function bucketRows(input: Input, options: BucketRunOptions, f: BucketFlag
 async function runBucket(file: string, input: Input, options: BucketRunOptions, f: BucketFlags, ctx: CommandContext): Promise<void> {
   const result = await bucketRows(input, options, f, ctx);
   result.summary.file = file;
+  // Standard input was read from a temporary copy: its rows are named after '-', not the copy.
+  result.summary.rejectedExamples = result.summary.rejectedExamples.map((d) => ({ ...d, file }));
   if (f.specOut !== undefined) {
     try { await writeFile(resolve(ctx.io.cwd, f.specOut), `${JSON.stringify(bucketSpecOf(result.set, options.value), null, 2)}\n`); } catch (e) {
       throw new QuernError('E_OUTPUT', `cannot write the spec file ${f.specOut}: ${(e as NodeJS.ErrnoException).code ?? String(e)}`);

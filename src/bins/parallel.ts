@@ -59,7 +59,7 @@ export async function bucketFile(file: string, options: BucketRunOptions, table:
   const read = mergeSummaries(outcomes, bases, table.maxExamples ?? READER_EXAMPLES);
   const tally = new BucketTally(set, options.maxExamples ?? 5);
   outcomes.forEach((o, k) => tally.absorb(o.partial, bases[k]!));
-  return { summary: tally.summary(file, options.value, read.rowsRead, read.rejectedByReason), set, numberFormat: { format: reading.format, inferred: reading.inferred }, passes: 1 };
+  return { summary: tally.summary(file, options.value, read.rowsRead, read.rejectedByReason, read.examples), set, numberFormat: { format: reading.format, inferred: reading.inferred }, passes: 1 };
 }
 
 function fits(splittable: boolean, size: number | undefined, options: BucketRunOptions, table: TableOptions, t: BucketThreads): boolean {

@@ -101,7 +101,7 @@ async function assign(reader: TableReader, o: BucketRunOptions, makeSet: (intege
   set ??= makeSet(true);
   tally ??= new BucketTally(set, o.maxExamples ?? 5);
   const s = reader.summary();
-  return { set, summary: tally.summary(reader.file, o.value, s.rowsRead, s.rejectedByReason), nf };
+  return { set, summary: tally.summary(reader.file, o.value, s.rowsRead, s.rejectedByReason, s.examples), nf };
 }
 
 /** The bucket set maker of a plan: fixed plans at once, data-driven ones after pass one. */
@@ -166,6 +166,6 @@ function byteSpec(options: BucketRunOptions, plan: { makeSet: SetMaker; given: P
 
 function fromBytes(reader: TableReader, options: BucketRunOptions, plan: { inferred: NumberFormatInference | null; passes: number }, r: Awaited<ReturnType<typeof assignBytes>>): BucketRunResult {
   const s = reader.summary();
-  const summary = r.tally.summary(reader.file, options.value, s.rowsRead, s.rejectedByReason);
+  const summary = r.tally.summary(reader.file, options.value, s.rowsRead, s.rejectedByReason, s.examples);
   return { summary, set: r.set, numberFormat: { format: r.reading.format, inferred: plan.inferred ?? r.reading.inferred }, passes: plan.passes };
 }

@@ -1,5 +1,6 @@
 // Counting a column into buckets: every value is bucketed, below, above, between buckets, empty or
 // invalid, with a few examples of each, so the summary adds up to the rows read.
+import type { Diagnostic } from '../errors.js';
 import type { ParsedNumber } from '../numbers/index.js';
 import { ABOVE, BELOW, makeBucketer, type Bucketer } from './bucketer.js';
 import type { BucketSet, ClosedSide, MergedEdge } from './types.js';
@@ -27,6 +28,8 @@ export interface BucketSummary {
   /** Rows the table reader rejected (ragged rows…), by reason. */
   rowsRejected: number;
   rejectedByReason: Record<string, number>;
+  /** The first few rejected rows, with line and reason (the table reader's examples). */
+  rejectedExamples: Diagnostic[];
   bucketed: number;
   buckets: BucketCount[];
   below: Outcome;
@@ -156,7 +159,7 @@ export class BucketTally {
   }
 
   /** The summary, given the table reader's row accounting. */
-  summary(file: string, value: string, rowsRead: number, rejectedByReason: Record<string, number>): BucketSummary {
+  summary(file: string, value: string, rowsRead: number, rejectedByReason: Record<string, number>, rejectedExamples: readonly Diagnostic[] = []): BucketSummary {
     const bucketed = this.counts.reduce((a, b) => a + b, 0);
     const rowsRejected = Object.values(rejectedByReason).reduce((a, b) => a + b, 0);
     const buckets = this.set.buckets.map((b, i): BucketCount => ({
@@ -172,7 +175,7 @@ export class BucketTally {
       notes.push(`${p.count} value${p.count === 1 ? '' : 's'} carried a percent sign and ${p.count === 1 ? 'was' : 'were'} bucketed as the number before it (first: ${JSON.stringify(first.value)} on line ${first.line})`);
     }
     return {
-      file, value, source, discrete, closed, rowsRead, rowsRejected, rejectedByReason, bucketed, buckets,
+      file, value, source, discrete, closed, rowsRead, rowsRejected, rejectedByReason, rejectedExamples: [...rejectedExamples], bucketed, buckets,
       below: this.below, above: this.above, between: this.between, empty: this.empty, invalid: this.invalid,
       nonInteger: this.nonInteger, percent: this.percent, merged, notes,
     };

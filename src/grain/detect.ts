@@ -73,7 +73,7 @@ async function lookAhead(file: string, names: readonly string[], options: GrainO
 
 function reportOf(file: string, reader: TableReader, cols: readonly GrainColumn[], zone: string | undefined): GrainReport {
   const summary = reader.summary();
-  const report: GrainReport = { file, rows: summary.rowsRead, rejectedRows: summary.rowsRejected, columns: [], skipped: [] };
+  const report: GrainReport = { file, rows: summary.rowsRead, rejectedRows: summary.rowsRejected, rejectedExamples: summary.examples, columns: [], skipped: [] };
   for (const col of cols) {
     col.finish();
     const found = analyseColumn(col, zone === undefined ? {} : { zone });

@@ -1,5 +1,6 @@
 // Plain result types of grain detection: what a date column really holds and how quern knows it.
 import type { FiscalStart, UnitName } from '../calendar/types.js';
+import type { Diagnostic } from '../errors.js';
 
 /** Whether the values mark the start of each period or its end (last day of a month, last instant of a day). */
 export type Anchor = 'start' | 'end';
@@ -117,6 +118,8 @@ export interface GrainReport {
   rows: number;
   /** Rows the table reader rejected (ragged, undecodable) before any column saw them. */
   rejectedRows: number;
+  /** The first few rejected rows, with line and reason (the table reader's examples). */
+  rejectedExamples?: Diagnostic[];
   columns: ColumnGrain[];
   /** Columns that were looked at and are not date-like, with the reason. */
   skipped: Array<{ name: string; reason: string }>;

@@ -93,7 +93,7 @@ export async function profileTable(file: string, options: ProfileOptions = {}): 
   }
   pairCoordinates(columns, numeric);
   const summary = reader.summary();
-  return { file, rows: summary.rowsRead, rejectedRows: summary.rowsRejected, shape: shape.decide(columns, summary.rowsRead - summary.rowsRejected), columns };
+  return { file, rows: summary.rowsRead, rejectedRows: summary.rowsRejected, rejectedExamples: summary.examples, shape: shape.decide(columns, summary.rowsRead - summary.rowsRejected), columns };
 }
 
 /** Half the columns in a worker thread, the other half and the shape here; put back in header order. */

@@ -1,4 +1,5 @@
 // Plain result types of a table profile.
+import type { Diagnostic } from '../errors.js';
 import type { ColumnGrain } from '../grain/types.js';
 
 /** Levels of measurement in the trade's three-way form of Stevens (1946), "On the theory of scales of measurement". */
@@ -65,6 +66,8 @@ export interface ProfileReport {
   rows: number;
   /** Rows the table reader rejected (ragged, undecodable), with the reason counts. */
   rejectedRows: number;
+  /** The first few rejected rows, with line and reason (the table reader's examples). */
+  rejectedExamples?: Diagnostic[];
   shape: TableShape;
   columns: ColumnProfile[];
 }

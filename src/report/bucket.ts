@@ -1,6 +1,7 @@
 // Human and JSON renderings of a bucket run: each range with its count and share as bars, then where
 // every other row went, so the reader sees the counts add up to the rows read.
 import type { BucketRunResult, BucketScheme, Outcome } from '../bins/index.js';
+import { formatDiagnostic } from '../errors.js';
 import { barChart, formatNumber, terminalSafe } from './terminal.js';
 
 export interface BucketTextOptions { color?: boolean; width?: number }
@@ -34,6 +35,7 @@ export function bucketSummaryText(result: BucketRunResult, options: BucketTextOp
   if (s.empty.count > 0) lines.push(`  empty: ${formatNumber(s.empty.count)}${reasons(s.empty.byReason)}${examples(s.empty)}`);
   if (s.invalid.count > 0) lines.push(`  invalid: ${formatNumber(s.invalid.count)}${reasons(s.invalid.byReason)}${examples(s.invalid)}`);
   if (rejected > 0) lines.push(`  rejected rows: ${formatNumber(rejected)}${reasons(s.rejectedByReason)}`);
+  for (const d of s.rejectedExamples) lines.push(`    ${terminalSafe(formatDiagnostic(d))}`);
   if (s.nonInteger.count > 0) lines.push(`  note: ${formatNumber(s.nonInteger.count)} values have a fraction; whole-number ranges count completed units (4.5 is in 0-4)${examples(s.nonInteger)}`);
   for (const m of s.merged) lines.push(`  note: edge ${m.value} appeared ${m.times} times (ties) and was merged`);
   for (const n of s.notes) lines.push(`  note: ${n}`);

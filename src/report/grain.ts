@@ -1,5 +1,6 @@
 // Text rendering of a grain report: one block per date-like column, a title line, then each finding as a
 // plain sentence, wrapped to the terminal width.
+import { formatDiagnostic } from '../errors.js';
 import type { ColumnGrain, GrainReport } from '../grain/types.js';
 import { grainWords } from '../grain/words.js';
 import { terminalSafe } from './terminal.js';
@@ -49,6 +50,7 @@ export function renderGrainText(report: GrainReport, options: TextOptions = {}):
   const head = `${terminalSafe(report.file)}: ${report.rows.toLocaleString('en-US')} rows${rejected}; ${n} date-like ${n === 1 ? 'column' : 'columns'}`
     + (skipped.length ? ` (not date-like: ${skipped.join(', ')})` : '');
   const out = [wrap(head, width, '  ', '')];
+  for (const d of report.rejectedExamples ?? []) out.push(`  ${terminalSafe(formatDiagnostic(d))}`);
   if (n === 0) out.push('No column holds dates, date-times or periods that quern can read.');
   for (const c of report.columns) {
     out.push('');

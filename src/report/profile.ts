@@ -1,5 +1,6 @@
 // Text rendering of a table profile: the shape in a sentence, then one line per column (level, role,
 // distinct, empty, reason), and the time columns' grain findings in brief.
+import { formatDiagnostic } from '../errors.js';
 import type { ProfileReport } from '../profile/types.js';
 import { bold, wrap, type TextOptions } from './grain.js';
 import { terminalSafe } from './terminal.js';
@@ -18,6 +19,7 @@ export function renderProfileText(report: ProfileReport, options: TextOptions = 
   const out: string[] = [];
   const rejected = report.rejectedRows > 0 ? ` (${num(report.rejectedRows)} rejected by the reader)` : '';
   out.push(`${terminalSafe(report.file)}: ${num(report.rows)} rows${rejected}, ${report.columns.length} columns`);
+  for (const d of report.rejectedExamples ?? []) out.push(`  ${terminalSafe(formatDiagnostic(d))}`);
   const s = report.shape;
   const kind = s.kind === 'aggregated' ? `aggregated, key ${s.key.join(' × ')}` : `items${s.key.length ? `, key ${s.key.join(' × ')}` : ''}`;
   out.push(wrap(`Shape: ${kind} — ${terminalSafe(s.reason)}.`, width, '  ', ''));

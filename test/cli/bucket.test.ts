@@ -45,6 +45,18 @@ describe('quern bucket', () => {
     expect(r.stderr).toContain('rows read 7 = 4 bucketed + 1 below + 0 above + 1 empty + 1 invalid + 0 rejected rows');
   });
 
+  it('quern bucket names each rejected row by line and reason, in the text and in --json (standard input as "-")', async () => {
+    const csv = 'id,age\n1,34\n2,45,extra\n3,50\n';
+    const r = await runCli(['bucket', '-', '--value', 'age', '--edges', '0,18,65', '--open-high', '--summary'], { stdin: csv });
+    expect(r.status).toBe(0);
+    expect(r.stdout).toContain('rejected rows: 1 (ragged-row 1)');
+    expect(r.stdout).toContain('-:3: value "2,45,extra": expected 2 fields as in the header, found 3');
+    const j = await runCli(['bucket', '-', '--value', 'age', '--method', 'quantile', '--bins', '2', '--summary', '--json'], { stdin: csv });
+    const s = json(j.stdout);
+    expect(s.rejectedExamples).toEqual([expect.objectContaining({ code: 'ragged-row', file: '-', line: 3 })]);
+    expect(s.bucketed + s.rowsRejected).toBe(s.rowsRead);
+  });
+
   // Which end holds the edge: [a, b) under left, (a, b] under right (the issue; R's cut(right =) — common practice).
   it.each([
     ['left', ['0-4', '0-4', '5-9', '10+']],

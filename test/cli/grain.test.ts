@@ -92,4 +92,14 @@ describe('quern grain', () => {
     expect(r.stdout).toContain('quern grain fixtures/fridge-temps.csv --json');
     expect(r.stdout).toContain('at least 99% of the parsed values');
   });
+
+  it('quern grain names each rejected row by line and reason (standard input as "-")', async () => {
+    const csv = 'ts,age\n2021-01-01T00:00:00Z,34\n2021-01-02T00:00:00Z,45,extra\n2021-01-03T00:00:00Z,50\n';
+    const r = await runCli(['grain', '-'], { stdin: csv });
+    expect(r.status).toBe(0);
+    expect(r.stdout).toContain('1 rejected by the reader');
+    expect(r.stdout).toContain('-:3: value "2021-01-02T00:00:00Z,45,extra": expected 2 fields as in the header, found 3');
+    const j = await runCli(['grain', '-', '--json'], { stdin: csv });
+    expect(JSON.parse(j.stdout).rejectedExamples).toEqual([expect.objectContaining({ code: 'ragged-row', file: '-', line: 3 })]);
+  });
 });

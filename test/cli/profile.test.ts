@@ -80,4 +80,14 @@ describe('quern profile', () => {
     expect(r.stdout).toContain('quern profile fixtures/weekly-cases.csv');
     expect(r.stdout).toContain('Stevens (1946)');
   });
+
+  it('quern profile names each rejected row by line and reason (standard input as "-")', async () => {
+    const csv = 'ts,age\n2021-01-01T00:00:00Z,34\n2021-01-02T00:00:00Z,45,extra\n2021-01-03T00:00:00Z,50\n';
+    const r = await runCli(['profile', '-'], { stdin: csv });
+    expect(r.status).toBe(0);
+    expect(r.stdout).toContain('1 rejected by the reader');
+    expect(r.stdout).toContain('-:3: value "2021-01-02T00:00:00Z,45,extra": expected 2 fields as in the header, found 3');
+    const j = await runCli(['profile', '-', '--json'], { stdin: csv });
+    expect(JSON.parse(j.stdout).rejectedExamples).toEqual([expect.objectContaining({ code: 'ragged-row', file: '-', line: 3 })]);
+  });
 });
