@@ -1,7 +1,7 @@
 // `quern bucket`: quantities such as ages into ordered, labelled ranges.
 // Options → BucketRunOptions → bucketTable() → BucketRunResult → rows (CSV) and a summary (text or JSON).
 import { createWriteStream } from 'node:fs';
-import { mkdtemp, open as openFile, readFile, rm, stat, writeFile, type FileHandle } from 'node:fs/promises';
+import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { pipeline } from 'node:stream/promises';
@@ -177,31 +177,6 @@ function rowNames(f: BucketFlags): Omit<CsvRowsOutput, 'write'> {
   return { neutraliseFormulas: f.neutralise, ...(f.labelColumn !== undefined ? { labelColumn: f.labelColumn } : {}), ...(f.indexColumn !== undefined ? { indexColumn: f.indexColumn } : {}) };
 }
 
-/**
- * A target that is not a regular file (a character device such as /dev/null, a FIFO) is written in place:
- * renaming a temporary file over it, as a file output does, would replace the device with a file.
- */
-async function deviceTarget(path: string, ctx: CommandContext): Promise<FileHandle | null> {
-  if (path === '-') return null;
-  const full = resolve(ctx.io.cwd, path);
-  try {
-    const st = await stat(full);
-    if (st.isFile() || st.isDirectory()) return null;
-    return await openFile(full, 'w');
-  } catch (e) {
-    if ((e as NodeJS.ErrnoException).code === 'ENOENT') return null;
-    throw new QuernError('E_OUTPUT', `${path}: cannot be written (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
-  }
-}
-
-async function writeAll(handle: FileHandle, path: string, chunk: Uint8Array): Promise<void> {
-  try {
-    for (let at = 0; at < chunk.byteLength;) at += (await handle.write(chunk, at, chunk.byteLength - at)).bytesWritten;
-  } catch (e) {
-    throw new QuernError('E_OUTPUT', `${path}: cannot be written (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
-  }
-}
-
 /** The file to read (standard input already copied to a file) and how to open it. */
 interface Input { path: string; table: TableOptions }
 
@@ -209,14 +184,7 @@ interface Input { path: string; table: TableOptions }
 async function bucketRows(input: Input, options: BucketRunOptions, f: BucketFlags, ctx: CommandContext): Promise<BucketRunResult> {
   const open = () => openTable(input.path, input.table);
   if (f.summary) return bucketFile(input.path, options, input.table, { threads: parseThreads(f.threads) });
-  const device = await deviceTarget(f.out, ctx);
-  if (device !== null) {
-    try {
-      return await bucketTableCsv(open, options, { ...rowNames(f), write: (chunk) => writeAll(device, f.out, chunk) });
-    } finally {
-      await device.close();
-    }
-  }
+  // openOutput writes a device or FIFO (--out /dev/null) in place and a file atomically.
   const out = await openOutput(f.out, { stdout: ctx.io.stdout, cwd: ctx.io.cwd });
   try {
     const result = await bucketTableCsv(open, options, targetRows(out, f));

@@ -104,12 +104,7 @@ export class ValueTable {
   /** The distinct values in order of first appearance, with their rows. */
   values(): StoredValue[] {
     const out: StoredValue[] = [];
-    for (let e = 0; e < this.size; e++) {
-      const ms = this.ms[e]!;
-      const offset = this.offset[e]!;
-      const wall = Number.isNaN(offset) ? ms : ms + offset * 60_000;
-      out.push({ ms, offset, weight: this.weight[e]!, line: this.line[e]!, text: this.text[e]!, wall });
-    }
+    this.forEach((ms, offset, weight, line, text, wall) => out.push({ ms, offset, weight, line, text, wall }));
     return out;
   }
 

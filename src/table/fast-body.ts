@@ -249,7 +249,6 @@ export class FastBody<B> {
     const { starts, ends } = scanner;
     const { input, output, state } = kernel;
     const nw = wanted.length;
-    const width = this.ctx.width;
     const len = buf.length;
     const qa = quoteAt < len ? quoteAt : len;
     const until = stop < 0x7fffffff ? stop : 0x7fffffff;
@@ -272,9 +271,7 @@ export class FastBody<B> {
         let from = 0;
         for (let r = 0, o = 0; r < n; r++, o += stride) {
           const end = output[o]!;
-          const f = output[o + 1]!;
-          const c0 = buf[record]!;
-          if (!(f === width && !(f === 1 && (c0 === LF || c0 === CR)) && (valid || isUtf8(buf.subarray(record, end))))) {
+          if (!this.takes(buf, record, end, output[o + 1]!, valid)) {
             if (r > from) bytes.kernelRows(output, from * stride, r - from, stride, this.wanted, line - (r - from));
             passed += r - from;
             from = r + 1;
@@ -292,8 +289,7 @@ export class FastBody<B> {
       for (let r = 0, o = 0; r < n; r++, o += stride) {
         const end = output[o]!;
         const f = output[o + 1]!;
-        const c0 = buf[record]!;
-        if (f === width && !(f === 1 && (c0 === LF || c0 === CR)) && (valid || isUtf8(buf.subarray(record, end)))) {
+        if (this.takes(buf, record, end, f, valid)) {
           for (let k = 0; k < nw; k++) {
             const field = wanted[k]!;
             starts[field] = output[o + 2 + 2 * k]!;
@@ -313,6 +309,12 @@ export class FastBody<B> {
     this.line = line;
     this.passed += passed;
     return record;
+  }
+
+  /** True when the kernel's record buf[record, end) of `f` fields is a whole row: as wide as the header, not a blank line, UTF-8. */
+  private takes(buf: Buffer, record: number, end: number, f: number, valid: boolean): boolean {
+    const c0 = buf[record]!;
+    return f === this.ctx.width && !(f === 1 && (c0 === LF || c0 === CR)) && (valid || isUtf8(buf.subarray(record, end)));
   }
 
   /** A record the kernel found and the sink does not take: scanned again in full, for its diagnostics. */
