@@ -2,9 +2,9 @@
 import { QuernError } from '../src/errors.js';
 
 /**
- * Help text of --threads. One thread is the default: on the two-core machine of the benchmark, two threads
- * made a 10M-row profile about a fifth faster but rebin about two fifths slower, for more CPU and memory
- * (DEVELOPERS.md, Performance), so more threads are for a machine with idle cores.
+ * Help text of --threads for rebin and bucket. One thread is the default: on the two-core machine of
+ * the benchmark two threads made rebin about two fifths slower, for more CPU and memory (DEVELOPERS.md,
+ * Performance), so more threads are for a machine with idle cores. profile has its own default (below).
  */
 export const THREADS_HELP = 'threads reading a plain CSV/TSV file of 32 MB or more (default 1; worth raising only when cores are idle)';
 
@@ -16,4 +16,14 @@ export function parseThreads(flag: string | undefined): number {
     throw new QuernError('E_USAGE', `--threads ${JSON.stringify(flag)} is not a whole number from 1 to 64`, 'for example --threads 2, or --threads 1 to read on one thread');
   }
   return n;
+}
+
+/** Help text of profile's --threads, whose default is 'auto' (autoThreads in src/profile/split.ts). */
+export const PROFILE_THREADS_HELP =
+  "threads: 'auto' (the default) takes two for a plain CSV/TSV file of 128 MiB or more when two cores are there, " +
+  'one otherwise; a number from 1 to 64 sets it (two or more split the columns of a file of 32 MB or more between two threads)';
+
+/** profile's `--threads`: 'auto' when absent or 'auto', else parseThreads(flag). */
+export function parseProfileThreads(flag: string | undefined): number | 'auto' {
+  return flag === undefined || flag === 'auto' ? 'auto' : parseThreads(flag);
 }

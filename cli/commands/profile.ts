@@ -4,7 +4,7 @@ import type { Command } from 'commander';
 import { QuernError, profileEvidence, profileTable, renderProfileReport, renderProfileText } from '../../src/index.js';
 import { REPORT_HELP, writeReport } from '../report-output.js';
 import type { CommandContext } from '../program.js';
-import { parseThreads, THREADS_HELP } from '../threads.js';
+import { PROFILE_THREADS_HELP, parseProfileThreads } from '../threads.js';
 import { useColor } from '../io.js';
 
 const EXAMPLES = `
@@ -37,13 +37,13 @@ export function registerProfile(program: Command, ctx: CommandContext): void {
     .argument('<file>', "table to read (CSV, TSV, NDJSON, optionally gzipped; '-' for standard input)")
     .option('--json', 'print the result as JSON')
     .option('--delimiter <char>', 'input field delimiter (default: sniffed)')
-    .option('--threads <n>', `${THREADS_HELP}; two split the columns between them`)
+    .option('--threads <n>', PROFILE_THREADS_HELP)
     .option('--report <file.html>', REPORT_HELP)
     .addHelpText('after', EXAMPLES)
     .action(async (file: string, flags: ProfileFlags) => {
       const report = await profileTable(file, {
         table: { cwd: ctx.io.cwd, stdin: ctx.io.stdin, ...(flags.delimiter ? { delimiter: flags.delimiter } : {}) },
-        threads: parseThreads(flags.threads),
+        threads: parseProfileThreads(flags.threads),
       });
       if (flags.json) ctx.io.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
       else ctx.io.stdout.write(renderProfileText(report, { width: ctx.io.stdout.columns ?? 100, color: useColor(ctx.io) }));

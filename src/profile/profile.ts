@@ -6,7 +6,8 @@ import { ProfileColumn } from './column.js';
 import { finishColumns } from './columns-task.js';
 import type { NumericSummary } from './numeric.js';
 import { ShapeTracker } from './shape.js';
-import { SPLIT_MIN_BYTES, cloneableTable, runColumnsWorker, workerColumns } from './split.js';
+import { availableParallelism } from 'node:os';
+import { SPLIT_MIN_BYTES, autoThreads, cloneableTable, runColumnsWorker, workerColumns, type ColumnsWorker } from './split.js';
 import type { ColumnProfile, ProfileReport } from './types.js';
 
 export interface ProfileOptions {
@@ -19,9 +20,10 @@ export interface ProfileOptions {
   /**
    * Threads (default 1). With 2 or more, a plain file of at least `splitMinBytes` read by the fast engine
    * has its columns split between the main thread and one worker thread: the same report, in less time
-   * where a second core is free.
+   * where a second core is free. 'auto' takes two threads for a file of at least AUTO_SPLIT_BYTES on a
+   * machine with two cores or more (autoThreads), one otherwise.
    */
-  threads?: number;
+  threads?: number | 'auto';
   /** Smallest file whose columns are split (default 32 MiB); tests lower it. */
   splitMinBytes?: number;
 }
@@ -55,10 +57,13 @@ async function readStrings(reader: TableReader, acc: readonly ProfileColumn[], s
 }
 
 /** The byte path: ASCII batches are read from their bytes (see ProfileColumn.pushBatch). Columns without an
- *  accumulator (`null`: read by another thread) only feed the shape. */
-async function readBytes(reader: TableReader, acc: ReadonlyArray<ProfileColumn | null>, shape: ShapeTracker): Promise<void> {
+ *  accumulator (`null`: read by another thread) only feed the shape. `beforeSecond`, when given, is called
+ *  once, when a second batch has come and before it is read (it may set accumulators to null). */
+async function readBytes(reader: TableReader, acc: Array<ProfileColumn | null>, shape: ShapeTracker, beforeSecond?: () => void): Promise<void> {
+  let batches = 0;
   // Batches are read to their end and not kept (values are taken as numbers or strings): transient.
   for await (const b of reader.byteBatches([...reader.header], [], { transient: true })) {
+    if (++batches === 2) beforeSecond?.();
     shape.observeBytes(b);
     for (let c = 0; c < acc.length; c++) acc[c]?.pushBatch(b, c);
   }
@@ -67,7 +72,8 @@ async function readBytes(reader: TableReader, acc: ReadonlyArray<ProfileColumn |
 
 /** True when the columns of this read may be split between threads. */
 function splittable(file: string, reader: TableReader, options: ProfileOptions): boolean {
-  return (options.threads ?? 1) > 1 && options.bytes !== false && reader.engine === 'fast' && reader.format !== 'ndjson'
+  const threads = options.threads === 'auto' ? autoThreads(reader.totalBytes ?? 0, availableParallelism()) : (options.threads ?? 1);
+  return threads > 1 && options.bytes !== false && reader.engine === 'fast' && reader.format !== 'ndjson'
     && file !== '-' && !/\.gz$/i.test(file) && reader.header.length > 1 && (reader.totalBytes ?? 0) >= (options.splitMinBytes ?? SPLIT_MIN_BYTES);
 }
 
@@ -96,20 +102,31 @@ export async function profileTable(file: string, options: ProfileOptions = {}): 
   return { file, rows: summary.rowsRead, rejectedRows: summary.rowsRejected, rejectedExamples: summary.examples, shape: shape.decide(columns, summary.rowsRead - summary.rowsRejected), columns };
 }
 
-/** Half the columns in a worker thread, the other half and the shape here; put back in header order. */
+/**
+ * Some columns in a worker thread, the others and the shape here; put back in header order. Every column is
+ * read here for the first batch, which shows which columns are date-like (the costly ones); then the worker
+ * is asked for a share of the columns balanced by cost (workerColumns) and reads them from the start of the
+ * file, while this thread drops them. A file of one batch is read here alone (no worker is started).
+ */
 async function readSplit(file: string, reader: TableReader, options: ProfileOptions, shape: ShapeTracker): Promise<{ columns: ColumnProfile[]; numeric: Array<NumericSummary | null> }> {
-  const theirs = workerColumns(reader.header.length);
-  const worker = runColumnsWorker({ file, table: cloneableTable(options.table), columns: theirs });
-  worker.result.catch(() => undefined); // awaited below; this only keeps an early failure from going unhandled
-  const acc = reader.header.map((n, k) => (theirs.includes(k) ? null : new ProfileColumn(n)));
+  const acc: Array<ProfileColumn | null> = reader.header.map((n) => new ProfileColumn(n));
+  const split: { worker: ColumnsWorker | null } = { worker: null };
+  const startWorker = (): void => {
+    const theirs = workerColumns(acc.map((a) => a!.splitCost));
+    const worker = runColumnsWorker({ file, table: cloneableTable(options.table), columns: theirs });
+    worker.result.catch(() => undefined); // awaited below; this only keeps an early failure from going unhandled
+    for (const k of theirs) acc[k] = null;
+    split.worker = worker;
+  };
   try {
-    await readBytes(reader, acc, shape);
+    await readBytes(reader, acc, shape, startWorker);
   } catch (e) {
-    worker.stop();
+    split.worker?.stop();
     throw e;
   }
   const mine = finishColumns(acc.filter((a): a is ProfileColumn => a !== null));
-  const other = await worker.result;
+  if (split.worker === null) return { columns: mine.profiles, numeric: mine.numeric };
+  const other = await split.worker.result;
   const columns: ColumnProfile[] = [];
   const numeric: Array<NumericSummary | null> = [];
   let m = 0;

@@ -1,5 +1,5 @@
-// Splitting a big plain file's columns between two threads: a worker thread reads the file for one half of
-// the columns while the main thread reads it for the other half and the table's shape. Both halves are
+// Splitting a big plain file's columns between two threads: a worker thread reads the file for some of the
+// columns while the main thread reads it for the others and the table's shape. Both halves are
 // exact (each column is read whole, in order, by one accumulator), so no merge is needed; the cost is a
 // second tokenizing pass, paid on another core.
 import { Worker } from 'node:worker_threads';
@@ -10,9 +10,42 @@ import type { ColumnsJob, ColumnsResult } from './columns-task.js';
 /** Smallest plain file whose columns are split between threads. */
 export const SPLIT_MIN_BYTES = 32 << 20;
 
-/** Which columns (header indices) the worker thread reads: every other one from the first. */
-export function workerColumns(width: number): number[] {
-  return Array.from({ length: width }, (_, k) => k).filter((k) => k % 2 === 0);
+/**
+ * Smallest plain file that `threads: 'auto'` reads on two threads. On the benchmark's two-core machine (min
+ * of 5 runs) two threads took the benchmark's 374 MB file from 2.25 to 1.73 s and a 225 MB one from 1.38 to
+ * 1.14 s, but gained little or nothing on 110 MB and 37 MB (0.82 against 0.79 s, 0.54 against 0.58 s): the
+ * worker's start-up and its second tokenizing pass eat the gain on small files.
+ */
+export const AUTO_SPLIT_BYTES = 128 << 20;
+
+/** Threads for `threads: 'auto'`: two for a file of at least AUTO_SPLIT_BYTES when two cores are there. */
+export function autoThreads(fileBytes: number, cores: number): number {
+  return cores >= 2 && fileBytes >= AUTO_SPLIT_BYTES ? 2 : 1;
+}
+
+/** What the table's shape costs the main thread, in the units of `ProfileColumn.splitCost`. */
+export const SHAPE_COST = 1;
+
+/**
+ * Which columns (header indices) the worker thread reads, given each column's cost for the rest of the file
+ * (ProfileColumn.splitCost): the costliest first, each to the thread with less work so far, the main thread
+ * starting with the shape. Both threads tokenize the whole file, so only the column work is balanced. The
+ * worker gets at least one column; the result is in header order.
+ */
+export function workerColumns(costs: readonly number[]): number[] {
+  const order = costs.map((_, k) => k).sort((a, b) => costs[b]! - costs[a]! || a - b);
+  const theirs: number[] = [];
+  let main = SHAPE_COST;
+  let worker = 0;
+  for (const k of order) {
+    if (worker < main || theirs.length === 0) {
+      theirs.push(k);
+      worker += costs[k]!;
+    } else {
+      main += costs[k]!;
+    }
+  }
+  return theirs.sort((a, b) => a - b);
 }
 
 /** The table options a worker can be sent (functions and streams stay behind). */
@@ -21,8 +54,14 @@ export function cloneableTable(t: TableOptions = {}): TableOptions {
   return rest;
 }
 
+/** A column thread at work: its answer to come, and a way to stop it. */
+export interface ColumnsWorker {
+  result: Promise<ColumnsResult>;
+  stop: () => void;
+}
+
 /** Runs profileColumns(job) in a worker thread. */
-export function runColumnsWorker(job: ColumnsJob): { result: Promise<ColumnsResult>; stop: () => void } {
+export function runColumnsWorker(job: ColumnsJob): ColumnsWorker {
   const worker = spawn(job);
   const result = new Promise<ColumnsResult>((resolve, reject) => {
     let settled = false;

@@ -17,7 +17,7 @@ function quern(args: string[]): string {
 }
 
 describe('dist/quern.js on two threads', () => {
-  it.skipIf(!existsSync(main))('rebin and bucket give the one-thread results (workers find their modules)', () => {
+  it.skipIf(!existsSync(main))('rebin, bucket and profile give the one-thread results (workers find their modules)', () => {
     const file = join(dir, 'events.csv');
     const rows: string[] = ['ts,age'];
     const start = Date.UTC(2024, 0, 1);
@@ -33,5 +33,10 @@ describe('dist/quern.js on two threads', () => {
     const b2 = JSON.parse(quern([...bucket, '--threads', '2']));
     expect(b2).toEqual(b1);
     expect(b1.rowsRead).toBe(1_250_000);
+    // profile splits the columns: the worker thread takes ts (the costly, date-like column).
+    const p1 = JSON.parse(quern(['profile', file, '--json', '--threads', '1']));
+    const p2 = JSON.parse(quern(['profile', file, '--json', '--threads', '2']));
+    expect(p2).toEqual(p1);
+    expect(p1.columns.map((c: { role: string }) => c.role)[0]).toBe('time');
   });
 });

@@ -61,12 +61,19 @@ describe('quern profile', () => {
     expect(r.stderr).toContain('hint:');
   });
 
-  it('--threads 1 and --threads 2 print the same JSON', async () => {
+  it('--threads 1, --threads 2, --threads auto and the default print the same JSON', async () => {
     // Differential: a file under the split threshold reads in one thread either way; the option must not change it.
     const one = await runCli(['profile', 'fixtures/weekly-cases.csv', '--json', '--threads', '1']);
-    const two = await runCli(['profile', 'fixtures/weekly-cases.csv', '--json', '--threads', '2']);
-    expect(two.status).toBe(0);
-    expect(two.stdout).toBe(one.stdout);
+    for (const extra of [['--threads', '2'], ['--threads', 'auto'], []]) {
+      const other = await runCli(['profile', 'fixtures/weekly-cases.csv', '--json', ...extra]);
+      expect(other.status).toBe(0);
+      expect(other.stdout).toBe(one.stdout);
+    }
+  });
+
+  it("--help says what --threads 'auto' does", async () => {
+    const r = await runCli(['profile', '--help']);
+    expect(r.stdout).toMatch(/'auto' \(the default\) takes two/);
   });
 
   it('a missing file exits 3 with one line and a hint', async () => {

@@ -208,6 +208,16 @@ describe('profileTable(file, { threads: 2 }) with the columns split between two 
     expect(two).toEqual(one);
   });
 
+  it('a file of one batch is read on the main thread alone (same report)', async () => {
+    const file = writeTable({ rows: 900, seed: 24 });
+    expect(await profileTable(file, { threads: 2, splitMinBytes: 0, table: { batchSize: 5_000 } })).toEqual(await profileTable(file));
+  });
+
+  it("threads 'auto' gives the one-thread report (a small file: one thread)", async () => {
+    const file = writeTable({ rows: 1_500, seed: 25 });
+    expect(await profileTable(file, { threads: 'auto' })).toEqual(await profileTable(file));
+  });
+
   it('below the size threshold, and for standard input, reads in one thread (same report)', async () => {
     const file = writeTable({ rows: 1_200, seed: 23 });
     expect(await profileTable(file, { threads: 2 })).toEqual(await profileTable(file));
