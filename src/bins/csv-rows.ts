@@ -93,7 +93,9 @@ export class CsvRowEncoder {
     const { starts, ends, buf } = b;
     const w = starts.length, n = b.length;
     const first = starts[0]!, last = ends[w - 1]!;
-    const flags = this.neutralise ? this.formulaRows(b) : null;
+    // The WebAssembly module holds the batch for both the formula check and the copy, when it can.
+    const loaded = this.gather !== null && this.gather.load(buf, first, last, 0, n);
+    const flags = !this.neutralise ? null : loaded ? this.formulaRowsLoaded(b) : this.formulaRows(b);
     const inView = new DataView(buf.buffer, buf.byteOffset, buf.byteLength);
     const suffix = this.suffix, none = this.none;
     const wr = this.writer;
@@ -104,7 +106,7 @@ export class CsvRowEncoder {
       let to = i + 1;
       if (flags !== null) while (to < n && flags[to] === 0) to++;
       else to = n;
-      if (this.gather !== null && this.gather.copy(buf, first, last, ks, i, to, wr)) { i = to; continue; }
+      if (loaded && this.gather!.copyLoaded(ks, i, to, wr)) { i = to; continue; }
       wr.reserve(last[to - 1]! - first[i]! + (to - i) * this.longestSuffix);
       const out = wr.bytes, ov = wr.view;
       let o = wr.length;
@@ -120,6 +122,20 @@ export class CsvRowEncoder {
       }
       wr.length = o;
     }
+  }
+
+  /**
+   * formulaRows() from the batch loaded into the WebAssembly module: its sweep flags the rows with a field
+   * starting with = + - @ or TAB, and only those are checked in full here.
+   */
+  private formulaRowsLoaded(b: ByteBatch): Uint8Array | null {
+    const n = b.length;
+    if (this.flags.length < n) this.flags = new Uint8Array(n);
+    const flags = this.flags;
+    if (this.gather!.formulaRows(flags) === 0) return null;
+    let any = 0;
+    for (let i = 0; i < n; i++) if (flags[i] === 1) { if (formulaIn(b, i)) any = 1; else flags[i] = 0; }
+    return any === 0 ? null : flags;
   }
 
   /**

@@ -15,6 +15,21 @@ interface WasmApi {
 }
 interface Memory { buffer: ArrayBuffer; grow(pages: number): number }
 type Gather = (n: number, firsts: number, lasts: number, ks: number, table: number, none: number, base: number, out: number) => number;
+type Formulas = (n: number, firsts: number, lasts: number, base: number, flags: number) => number;
+
+/** Where a loaded batch lies in the module's memory (see RowGather.load). */
+interface Loaded {
+  /** Rows loaded: [from, from + n) of the caller's arrays. */
+  from: number;
+  n: number;
+  /** Input offset of the first row's first byte, minus where it was put: memory offset = input offset - base. */
+  base: number;
+  firsts: number;
+  lasts: number;
+  ks: number;
+  flags: number;
+  output: number;
+}
 
 let compiled: object | null | undefined;
 
@@ -44,9 +59,12 @@ export class RowGather {
   private readonly tableEnd: number;
   private readonly none: number;
 
+  private loaded: Loaded | null = null;
+
   private constructor(
     private readonly memory: Memory,
     private readonly gather: Gather,
+    private readonly formulas: Formulas,
     suffixes: readonly Uint8Array[],
     private readonly longest: number,
   ) {
@@ -76,7 +94,7 @@ export class RowGather {
     if (module === null) return null;
     try {
       const instance = new wasm.Instance(module, {});
-      return new RowGather(instance.exports['memory'] as Memory, instance.exports['gather'] as Gather, suffixes, Math.max(...suffixes.map((s) => s.length)));
+      return new RowGather(instance.exports['memory'] as Memory, instance.exports['gather'] as Gather, instance.exports['formulas'] as Formulas, suffixes, Math.max(...suffixes.map((s) => s.length)));
     } catch {
       return null;
     }
@@ -101,26 +119,58 @@ export class RowGather {
    * (nothing written) when the memory cannot grow to hold them.
    */
   copy(buf: Uint8Array, firsts: Int32Array, lasts: Int32Array, ks: Int32Array, from: number, to: number, out: GatherTarget): boolean {
+    if (to - from <= 0) return true;
+    return this.load(buf, firsts, lasts, from, to) && this.copyLoaded(ks, from, to, out);
+  }
+
+  /**
+   * Puts rows from..to-1 (row i being buf[firsts[i], lasts[i]), rows in increasing order) into the module's
+   * memory for formulaRows and copyLoaded, which read them until the next load. False when the memory
+   * cannot grow to hold them (nothing is loaded).
+   */
+  load(buf: Uint8Array, firsts: Int32Array, lasts: Int32Array, from: number, to: number): boolean {
+    this.loaded = null;
     const n = to - from;
-    if (n <= 0) return true;
-    const base = firsts[from]!;
-    const size = lasts[to - 1]! - base;
+    if (n <= 0) return false;
+    const start = firsts[from]!;
+    const size = lasts[to - 1]! - start;
     const input = this.tableEnd;
     const fs = (input + size + SLACK + 7) & ~7;
     const ls = fs + 4 * n;
     const kk = ls + 4 * n;
-    const output = (kk + 4 * n + 7) & ~7;
-    const most = size + n * this.longest;
-    if (!this.ensure(output + most + SLACK)) return false;
-    const u8 = this.u8, i32 = this.i32;
-    u8.set(buf.subarray(base, Math.min(buf.length, base + size + 8)), input);
-    i32.set(firsts.subarray(from, to), fs >> 2);
-    i32.set(lasts.subarray(from, to), ls >> 2);
-    i32.set(ks.subarray(from, to), kk >> 2);
-    const end = this.gather(n, fs, ls, kk, 0, this.none, base - input, output);
-    const bytes = end - output;
+    const flags = kk + 4 * n;
+    const output = (flags + n + 7) & ~7;
+    if (!this.ensure(output + size + n * this.longest + SLACK)) return false;
+    this.u8.set(buf.subarray(start, Math.min(buf.length, start + size + SLACK)), input);
+    this.i32.set(firsts.subarray(from, to), fs >> 2);
+    this.i32.set(lasts.subarray(from, to), ls >> 2);
+    this.loaded = { from, n, base: start - input, firsts: fs, lasts: ls, ks: kk, flags, output };
+    return true;
+  }
+
+  /**
+   * For the loaded rows of quote-free, comma-separated bytes: flags[i - from] = 1 when a field of row i
+   * starts with = + - @ or TAB (it may be formula-like; the caller checks those rows in full), else 0.
+   * Returns how many rows were flagged.
+   */
+  formulaRows(flags: Uint8Array): number {
+    const l = this.loaded!;
+    const count = this.formulas(l.n, l.firsts, l.lasts, l.base, l.flags);
+    flags.set(this.u8.subarray(l.flags, l.flags + l.n));
+    return count;
+  }
+
+  /** copy() of loaded rows from..to-1 (within those loaded). */
+  copyLoaded(ks: Int32Array, from: number, to: number, out: GatherTarget): boolean {
+    const l = this.loaded!;
+    const n = to - from;
+    if (n <= 0) return true;
+    const at = from - l.from;
+    this.i32.set(ks.subarray(from, to), l.ks >> 2);
+    const end = this.gather(n, l.firsts + 4 * at, l.lasts + 4 * at, l.ks, 0, this.none, l.base, l.output);
+    const bytes = end - l.output;
     out.reserve(bytes);
-    out.bytes.set(u8.subarray(output, end), out.length);
+    out.bytes.set(this.u8.subarray(l.output, end), out.length);
     out.length += bytes;
     return true;
   }

@@ -81,4 +81,58 @@ describe('row-gather.wat', () => {
       expect(out.result().subarray(-34).toString('latin1')).toBe('a'.repeat(29) + ',x,0\n');
     }
   });
+
+  it('formulaRows flags exactly the rows with a field starting with = + - @ or TAB, as the model does', () => {
+    // The OWASP CSV Injection first bytes (= + - @ TAB; CR and LF cannot start an unquoted field). Fields are
+    // drawn from bytes that make the sweep's edge cases: formula bytes inside fields, commas (empty fields),
+    // rows of every length around the 16-byte steps, junk between rows (rejected rows: no row's bytes).
+    const alphabet = [0x3d, 0x2b, 0x2d, 0x40, 0x09, 0x61, 0x31, 0x2e, 0x20];
+    const field = fc.array(fc.constantFrom(...alphabet), { maxLength: 9 });
+    const rowArb = fc.array(field, { minLength: 1, maxLength: 5 });
+    const junk = fc.array(fc.constantFrom(0x2c, 0x3d, 0x2d, 0x0a, 0x0d, 0x61), { maxLength: 6 });
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ fields: rowArb, crlf: fc.boolean(), junk }), { minLength: 1, maxLength: 120, size: 'max' }),
+        fc.nat(40),
+        fc.nat(),
+        (rows, lead, pickSeed) => {
+          const bytes: number[] = Array.from({ length: lead }, () => 0x2c);
+          const firsts: number[] = [], lasts: number[] = [], model: number[] = [];
+          for (const r of rows) {
+            firsts.push(bytes.length);
+            r.fields.forEach((f, c) => { if (c > 0) bytes.push(0x2c); bytes.push(...f); });
+            lasts.push(bytes.length);
+            model.push(r.fields.some((f) => f.length > 0 && [0x3d, 0x2b, 0x2d, 0x40, 0x09].includes(f[0]!)) ? 1 : 0);
+            bytes.push(...(r.crlf ? [0x0d, 0x0a] : [0x0a]));
+            // Junk after a line end is a rejected row; it ends with a line end of its own.
+            if (r.junk.length > 0) bytes.push(...r.junk, 0x0a);
+          }
+          const buf = Buffer.from(bytes);
+          const from = pickSeed % rows.length;
+          const to = from + ((pickSeed >> 3) % (rows.length - from)) + 1;
+          const gather = RowGather.make([Buffer.from(',,\n')])!;
+          expect(gather.load(buf, Int32Array.from(firsts), Int32Array.from(lasts), from, to)).toBe(true);
+          const flags = new Uint8Array(to - from);
+          const count = gather.formulaRows(flags);
+          expect([...flags]).toEqual(model.slice(from, to));
+          expect(count).toBe(model.slice(from, to).reduce((a, b) => a + b, 0));
+        },
+      ),
+      { numRuns: 500 },
+    );
+  });
+
+  it('copyLoaded copies a part of the loaded rows, as copy does', () => {
+    const rows = ['a,b', '=1,c', 'dd,ee,ff', 'x'];
+    const buf = Buffer.from(rows.join('\n') + '\n');
+    const firsts: number[] = [], lasts: number[] = [];
+    let at = 0;
+    for (const r of rows) { firsts.push(at); lasts.push(at + r.length); at += r.length + 1; }
+    const gather = RowGather.make([Buffer.from(',L,0\n'), Buffer.from(',,\n')])!;
+    const ks = Int32Array.from([0, 0, -1, 0]);
+    expect(gather.load(buf, Int32Array.from(firsts), Int32Array.from(lasts), 0, 4)).toBe(true);
+    const out = target(new Uint8Array(0));
+    expect(gather.copyLoaded(ks, 2, 4, out)).toBe(true);
+    expect(out.result().toString('latin1')).toBe('dd,ee,ff,,\nx,L,0\n');
+  });
 });
