@@ -9,13 +9,25 @@ import type { ByteBatch } from '../table/types.js';
 import { inferNumberFormat } from '../numbers/infer.js';
 import { makeNumberParser } from '../numbers/parse.js';
 import { emptyFieldScan, scanField } from './byte-scan.js';
-import { DistinctCounter } from './distinct.js';
+import { DistinctCounter, packShortHi, packShortLo, shortSlot } from './distinct.js';
 import { NumericEvidence } from './numeric.js';
 
 /** Non-empty values from the head of the column used to infer its number format. */
 export const NUMBER_HEAD = 1_000;
 /** Values up to this many bytes are counted through DistinctCounter's cache of short values. */
 const SHORT_VALUE = 6;
+
+/**
+ * A direct-mapped cache of short plain numbers (keyed as DistinctCounter's cache of short values, by
+ * packShortLo and packShortHi, in the same slots): the value and its NumericEvidence.plainShape. Only
+ * values addPlainBytes took are kept, so a hit is the same evidence as reading the bytes again.
+ */
+class ShortNumbers {
+  readonly lo = new Int32Array(1024);
+  readonly hi = new Int32Array(1024).fill(-1);
+  readonly value = new Float64Array(1024);
+  readonly shape = new Uint8Array(1024);
+}
 
 export class ProfileColumn {
   empty = 0;
@@ -28,6 +40,8 @@ export class ProfileColumn {
   numbersStopped = false;
   private timeMode: boolean | null = null;
   private readonly scan = emptyFieldScan();
+  /** Plain numbers of at most SHORT_VALUE bytes seen lately (made on first use). */
+  private shortNumbers: ShortNumbers | null = null;
   private head: string[] | null = [];
 
   constructor(readonly name: string) {
@@ -152,9 +166,23 @@ export class ProfileColumn {
       if (distinct === null) {
         if (!numeric.addPlainBytes(buf, s, e)) numeric.addOther(asciiString(buf, s, e));
       } else if (e - s <= SHORT_VALUE && !distinct.sketching) {
-        // A short value is counted through the distinct counter's cache, without hashing it.
-        distinct.addBytes(buf, s, e);
-        if (!numeric.addPlainBytes(buf, s, e)) numeric.addOther(asciiString(buf, s, e));
+        // A short value is counted through the distinct counter's cache, without hashing it, and a plain
+        // number seen before is taken from this column's cache of short numbers, without reading it again.
+        const lo = packShortLo(buf, s, e - s);
+        const hi = packShortHi(buf, s, e - s);
+        distinct.addShort(buf, s, e, lo, hi);
+        const cache = this.shortNumbers ?? (this.shortNumbers = new ShortNumbers());
+        const slot = shortSlot(lo, hi);
+        if (cache.lo[slot] === lo && cache.hi[slot] === hi) {
+          numeric.addRepeat(cache.value[slot]!, cache.shape[slot]!);
+        } else if (numeric.addPlainBytes(buf, s, e)) {
+          cache.lo[slot] = lo;
+          cache.hi[slot] = hi;
+          cache.value[slot] = numeric.plainValue;
+          cache.shape[slot] = numeric.plainShape;
+        } else {
+          numeric.addOther(asciiString(buf, s, e));
+        }
       } else {
         // One walk over the bytes hashes the value and reads it as a plain decimal.
         scanField(buf, s, e, dot, scan);

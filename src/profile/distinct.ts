@@ -10,16 +10,31 @@ export const EXACT_DISTINCT_CAP = 10_000;
 const SHORT = 6;
 const SHORT_SLOTS = 1024;
 
-/** Length and bytes of a value of at most 6 bytes as one exact number below 2^51. */
-function packShort(b: Uint8Array, s: number, e: number): number {
-  let key = e - s;
-  for (let i = s; i < e; i++) key = key * 256 + b[i]!;
-  return key;
+/** Per length 0..6, the bytes of the first four a value holds, as a mask of packShortLo's big-endian word. */
+const LO_MASK = Int32Array.from([0, 0xff000000, 0xffff0000, 0xffffff00, -1, -1, -1]);
+/** Per length 0..6, the bytes of the fifth and sixth it holds, in packShortHi's low 16 bits. */
+const HI_MASK = Int32Array.from([0, 0, 0, 0, 0, 0xff00, 0xffff]);
+
+/**
+ * Bytes 0..3 of a value of `n` ≤ 6 bytes at b[s], big-endian, bytes past its end zeroed. With
+ * packShortHi (its length and bytes 4..5) it is the value exactly, in two small integers. Six bytes are
+ * read whatever `n` (no branch on the length, which is hard to predict) unless the buffer ends first.
+ */
+export function packShortLo(b: Uint8Array, s: number, n: number): number {
+  if (s + 4 <= b.length) return ((b[s]! << 24) | (b[s + 1]! << 16) | (b[s + 2]! << 8) | b[s + 3]!) & LO_MASK[n]!;
+  let lo = 0;
+  for (let i = 0; i < 4; i++) lo = (lo << 8) | (i < n ? b[s + i]! : 0);
+  return lo;
 }
 
-function shortSlot(key: number): number {
-  const lo = key | 0;
-  const hi = (key / 4294967296) | 0;
+/** The length of a value of `n` ≤ 6 bytes at b[s] (bits 16..18) and its bytes 4..5 (bits 0..15); see packShortLo. */
+export function packShortHi(b: Uint8Array, s: number, n: number): number {
+  if (s + 6 <= b.length) return (n << 16) | (((b[s + 4]! << 8) | b[s + 5]!) & HI_MASK[n]!);
+  return (n << 16) | ((n > 4 ? b[s + 4]! << 8 : 0) | (n > 5 ? b[s + 5]! : 0));
+}
+
+/** The slot of a packed short value in a direct-mapped cache of SHORT_SLOTS (1024) entries. */
+export function shortSlot(lo: number, hi: number): number {
   return Math.imul(lo ^ Math.imul(hi, 0x85ebca6b), 0x9e3779b1) >>> 22;
 }
 
@@ -27,10 +42,11 @@ export class DistinctCounter {
   private readonly table = new StringTable();
   private sketch: HyperLogLog | null = null;
   /**
-   * A direct-mapped cache of short values (up to 6 bytes, packed into one number with their length) to their
+   * A direct-mapped cache of short values (up to 6 bytes, packed with their length into two integers) to their
    * entry in the table: a repeated short value is counted without hashing or comparing its bytes.
    */
-  private readonly shortKeys = new Float64Array(SHORT_SLOTS).fill(-1);
+  private readonly shortLo = new Int32Array(SHORT_SLOTS);
+  private readonly shortHi = new Int32Array(SHORT_SLOTS).fill(-1);
   private readonly shortEntries = new Int32Array(SHORT_SLOTS);
 
   constructor(private readonly cap = EXACT_DISTINCT_CAP) {}
@@ -52,24 +68,33 @@ export class DistinctCounter {
 
   /** add() for the ASCII bytes buf[start, end) of a value: the same counts, no string unless the value is new. */
   addBytes(buf: Uint8Array, start: number, end: number): void {
-    if (this.sketch === null && end - start <= SHORT) {
-      const key = packShort(buf, start, end);
-      const slot = shortSlot(key);
-      if (this.shortKeys[slot] === key) {
-        this.table.count(this.shortEntries[slot]!);
-        return;
-      }
-      const hash = hashBytes(buf, start, end);
-      const e = this.table.size < this.cap ? this.table.addBytesEntry(buf, start, end, hash) : this.table.addBytesIfPresent(buf, start, end, hash);
-      if (e >= 0) {
-        this.shortKeys[slot] = key;
-        this.shortEntries[slot] = e;
-      } else {
-        this.startSketch(hash);
-      }
+    const n = end - start;
+    if (this.sketch === null && n <= SHORT) {
+      this.addShort(buf, start, end, packShortLo(buf, start, n), packShortHi(buf, start, n));
       return;
     }
     this.addHashed(buf, start, end, hashBytes(buf, start, end));
+  }
+
+  /**
+   * addBytes() of a value of at most six bytes while the exact table runs (not `sketching`), given its
+   * packShortLo and packShortHi: a value in the cache is counted without hashing or comparing its bytes.
+   */
+  addShort(buf: Uint8Array, start: number, end: number, lo: number, hi: number): void {
+    const slot = shortSlot(lo, hi);
+    if (this.shortLo[slot] === lo && this.shortHi[slot] === hi) {
+      this.table.count(this.shortEntries[slot]!);
+      return;
+    }
+    const hash = hashBytes(buf, start, end);
+    const e = this.table.size < this.cap ? this.table.addBytesEntry(buf, start, end, hash) : this.table.addBytesIfPresent(buf, start, end, hash);
+    if (e >= 0) {
+      this.shortLo[slot] = lo;
+      this.shortHi[slot] = hi;
+      this.shortEntries[slot] = e;
+    } else {
+      this.startSketch(hash);
+    }
   }
 
   /** addBytes() with the bytes' hash (hashBytes) already made. */

@@ -33,6 +33,9 @@ export class NumericEvidence {
   };
   private readonly out: ParsedNumber = emptyParsedNumber();
   private prev = NaN;
+  /** The value and shape (PLAIN_DIGITS, PLAIN_ZERO_PADDED) of the last value addPlainBytes took, for addRepeat. */
+  plainValue = NaN;
+  plainShape = 0;
 
   /** True when a point marks decimals in this column's number format (the plain-decimal scan applies). */
   readonly dotIsDecimal: boolean;
@@ -158,6 +161,7 @@ export class NumericEvidence {
     let x = decimals > 0 ? value / POW10[decimals]! : value;
     if (negative && x !== 0) x = -x;
     this.record(x);
+    this.plainValue = x;
     const s = this.s;
     const n = end - start;
     if (decimals < 0 && intStart === start) {
@@ -167,11 +171,28 @@ export class NumericEvidence {
       if (n > 1 && buf[start] === 48) {
         s.zeroPadded++;
         if (s.zeroPaddedExample === null) s.zeroPaddedExample = asciiString(buf, start, end);
+        this.plainShape = PLAIN_DIGITS | PLAIN_ZERO_PADDED;
+      } else {
+        this.plainShape = PLAIN_DIGITS;
       }
-    } else if (decimals >= 0 && decimals > s.maxDecimals) {
-      s.maxDecimals = decimals;
+    } else {
+      if (decimals >= 0 && decimals > s.maxDecimals) s.maxDecimals = decimals;
+      this.plainShape = 0;
     }
     return true;
+  }
+
+  /**
+   * addPlainBytes() again for a value it took before (true) whose `plainShape` was `shape`: the same
+   * evidence, from the value and its shape (its widths, decimals and example were noted the first time).
+   */
+  addRepeat(x: number, shape: number): void {
+    this.record(x);
+    if ((shape & PLAIN_DIGITS) !== 0) {
+      const s = this.s;
+      s.digitOnly++;
+      if ((shape & PLAIN_ZERO_PADDED) !== 0) s.zeroPadded++;
+    }
   }
 
   /**
@@ -209,6 +230,10 @@ export class NumericEvidence {
     this.prev = x;
   }
 }
+
+/** Bits of NumericEvidence.plainShape: digits only (no sign, no point); and a leading zero before more digits. */
+export const PLAIN_DIGITS = 1;
+export const PLAIN_ZERO_PADDED = 2;
 
 const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
 

@@ -4,7 +4,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { makeNumberParser } from '../../src/numbers/parse.js';
-import { DistinctCounter } from '../../src/profile/distinct.js';
+import { DistinctCounter, packShortHi, packShortLo } from '../../src/profile/distinct.js';
 import { NumericEvidence } from '../../src/profile/numeric.js';
 
 const RUNS = Number(process.env.QUERN_FUZZ_RUNS ?? 200);
@@ -69,5 +69,36 @@ describe('DistinctCounter.add()', () => {
     d.add('z');
     expect(d.exact).toBe(false);
     expect(d.counts.has('z')).toBe(false);
+  });
+});
+
+describe('packShortLo and packShortHi', () => {
+  // The key of a short value must be the value exactly: two values of at most six bytes share a key only
+  // when their bytes are equal (a JavaScript string comparison is the oracle), whatever bytes follow them in
+  // the buffer and wherever the buffer ends.
+  const value = fc.uint8Array({ maxLength: 6 });
+  it('give equal keys to equal values and different keys to different ones, whatever follows them', () => {
+    fc.assert(
+      fc.property(value, value, fc.uint8Array({ maxLength: 8 }), fc.uint8Array({ maxLength: 8 }), (a, b, tailA, tailB) => {
+        const ba = Buffer.concat([a, tailA]);
+        const bb = Buffer.concat([Buffer.from([7, 7]), b, tailB]);
+        const ka = [packShortLo(ba, 0, a.length), packShortHi(ba, 0, a.length)];
+        const kb = [packShortLo(bb, 2, b.length), packShortHi(bb, 2, b.length)];
+        const same = Buffer.from(a).equals(Buffer.from(b));
+        expect(ka[0] === kb[0] && ka[1] === kb[1]).toBe(same);
+      }),
+      { numRuns: RUNS * 5 },
+    );
+  });
+
+  it('give the same key at the end of a buffer (the byte-by-byte fallback) as inside one', () => {
+    fc.assert(
+      fc.property(value, fc.uint8Array({ minLength: 6, maxLength: 8 }), (v, tail) => {
+        const atEnd = Buffer.from(v);
+        const inside = Buffer.concat([v, tail]);
+        expect([packShortLo(atEnd, 0, v.length), packShortHi(atEnd, 0, v.length)]).toEqual([packShortLo(inside, 0, v.length), packShortHi(inside, 0, v.length)]);
+      }),
+      { numRuns: RUNS * 5 },
+    );
   });
 });
