@@ -11,19 +11,23 @@ export const THREADS_HELP = 'threads reading a plain CSV/TSV file of 32 MB or mo
 /** `--threads`: a whole number from 1 to 64; 1 when absent. Throws QuernError('E_USAGE') otherwise. */
 export function parseThreads(flag: string | undefined): number {
   if (flag === undefined) return 1;
+  return threadCount(flag, 'a whole number from 1 to 64', 'for example --threads 2, or --threads 1 to read on one thread');
+}
+
+/** The whole number from 1 to 64 that `flag` spells, or QuernError('E_USAGE') saying what was `expected`. */
+function threadCount(flag: string, expected: string, hint: string): number {
   const n = Number(flag);
-  if (!Number.isSafeInteger(n) || n < 1 || n > 64) {
-    throw new QuernError('E_USAGE', `--threads ${JSON.stringify(flag)} is not a whole number from 1 to 64`, 'for example --threads 2, or --threads 1 to read on one thread');
-  }
+  if (!Number.isSafeInteger(n) || n < 1 || n > 64) throw new QuernError('E_USAGE', `--threads ${JSON.stringify(flag)} is not ${expected}`, hint);
   return n;
 }
 
 /** Help text of profile's --threads, whose default is 'auto' (autoThreads in src/profile/split.ts). */
 export const PROFILE_THREADS_HELP =
   "threads: 'auto' (the default) takes two for a plain CSV/TSV file of 128 MiB or more when two cores are there, " +
-  'one otherwise; a number from 1 to 64 sets it (two or more split the columns of a file of 32 MB or more between two threads)';
+  'one otherwise; a number from 1 to 64 sets it (two or more split the columns of a file of 32 MiB or more between two threads)';
 
-/** profile's `--threads`: 'auto' when absent or 'auto', else parseThreads(flag). */
+/** profile's `--threads`: 'auto' when absent or 'auto', else a whole number from 1 to 64 (QuernError('E_USAGE') otherwise). */
 export function parseProfileThreads(flag: string | undefined): number | 'auto' {
-  return flag === undefined || flag === 'auto' ? 'auto' : parseThreads(flag);
+  if (flag === undefined || flag === 'auto') return 'auto';
+  return threadCount(flag, "'auto' or a whole number from 1 to 64", 'for example --threads auto (the default), or --threads 1 to read on one thread');
 }

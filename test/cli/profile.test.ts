@@ -57,7 +57,7 @@ describe('quern profile', () => {
     // Exit statuses of cli/exit.ts (team brief): 2 is misuse.
     const r = await runCli(['profile', 'fixtures/visits.csv', '--threads', n]);
     expect(r.status).toBe(2);
-    expect(r.stderr).toMatch(/^quern: --threads "[^"]*" is not a whole number from 1 to 64/);
+    expect(r.stderr).toMatch(/^quern: --threads "[^"]*" is not 'auto' or a whole number from 1 to 64/);
     expect(r.stderr).toContain('hint:');
   });
 
