@@ -92,11 +92,11 @@ export class ProfileColumn {
 
   /**
    * Relative cost of this column's values from here on, for splitting columns between threads (split.ts): a
-   * column grain still reads as time costs about five times a text or number column (on the benchmark's
-   * 10M-row file: 0.7 s for the timestamps against 0.1 to 0.2 s for each of the others, one thread).
+   * column grain still reads as time costs about three times a text or number column (CPU profiles of the
+   * benchmark's 10M-row file on two threads: about 0.8 s for the timestamps, 0.25 to 0.4 s for each other).
    */
   get splitCost(): number {
-    return this.grain.notTime ? 1 : 5;
+    return this.grain.notTime ? 1 : 3;
   }
 
   /** Counts, distinct values and numbers of an ASCII byte column once the heads are read. */
