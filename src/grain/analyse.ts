@@ -1,6 +1,6 @@
 // Turns one accumulated column into its findings: the reading kept, the zone, the grain under the tolerance
 // rule, the level, the cadence and the first and last values.
-import { CANDIDATES, isPeriodGrain } from './candidates.js';
+import { CANDIDATES, DAY, isPeriodGrain } from './candidates.js';
 import { cadenceOf, periodKey } from './cadence.js';
 import type { GrainColumn, Reading } from './column.js';
 import { BoundaryCounter } from './counter.js';
@@ -52,6 +52,12 @@ function resolveZone(r: Reading, values: StoredValue[], sampled: boolean, writte
   return resolveOneOffset(values, offsets[0] ?? 0, grainMs, sampled);
 }
 
+/** True when `a` is a coarser grain than `b` (no grain counts as the finest). */
+function coarser(a: GrainChoice | null, b: GrainChoice | null): boolean {
+  const ms = (c: GrainChoice | null): number => (c === null ? 0 : CANDIDATES[c.candidate]!.approxMs);
+  return ms(a) > ms(b);
+}
+
 function notationOf(r: Reading): Grain | null {
   if (r.kinds.period === 0 || r.kinds.period < r.parsed) return null;
   return notationGrain(r.periodUnit ?? r.format.unit, r.format.fiscalStart?.month ?? 10);
@@ -79,9 +85,16 @@ export function analyseColumn(col: GrainColumn, options: AnalyseOptions = {}): C
   const choose = { notation: notationOf(r), endHint: namesAnEnd(col.name) };
   const writtenCounter = r.store.stream ?? counterOf(values, (v) => v.wall);
   const written = chooseGrain(writtenCounter, { ...choose, distinctKnown: r.store.stream === null });
-  const zone = resolveZone(r, values, sampled, written, options);
+  let zone = resolveZone(r, values, sampled, written, options);
   const sameWall = zone.finding.basis !== 'aligned' && zone.finding.basis !== 'given';
-  const choice = sameWall ? written : chooseGrain(counterOf(values, zone.wall), { ...choose, distinctKnown: !sampled });
+  let choice = sameWall ? written : chooseGrain(counterOf(values, zone.wall), { ...choose, distinctKnown: !sampled });
+  if (zone.finding.basis === 'aligned' && !coarser(choice, written)) {
+    // The zone was found because the values fall on its local hours or days, but too few of them to claim
+    // that coarser grain (the tolerance rule): the same few values cannot name the zone either. Keep the
+    // written offset.
+    zone = resolveOneOffset(values, [...r.offsets.keys()][0] ?? 0, DAY, sampled);
+    choice = written;
+  }
   const grain = choice ? withNotationUnit(choice.grain, r.periodUnit) : null;
   const distinct = r.store.distinctCount();
   let cad: Cadence | null = null;

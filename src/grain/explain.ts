@@ -43,7 +43,7 @@ function zoneSentence(c: ColumnGrain, firstMs: number, kinds: { instant: number;
       ? `The written offsets (${where}) do not change the way any IANA zone's offsets do.`
       : `The written offsets (${where}) change exactly as ${f.zone}'s daylight-saving rules do${alsoZones(f)}.`;
     case 'written': return f.zone === 'UTC'
-      ? 'Every value is written in UTC, and no other zone puts the values on coarser local boundaries.'
+      ? 'Every value is written in UTC, and no other zone puts enough of them on coarser local boundaries to claim it.'
       : `Every value is written with the offset ${where}${f.alternatives.length ? `, as ${f.alternatives.slice(0, 4).join(', ')}${f.alternatives.length > 4 ? ' …' : ''} keep over these dates` : ''}.`;
     case 'aligned': return '';
   }

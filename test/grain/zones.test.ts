@@ -109,3 +109,24 @@ describe('detectGrain(file) reads written offsets', () => {
     expect(c.level).toBe('quantitative');
   });
 });
+
+describe('detectGrain(file) claims no zone from too few values', () => {
+  // Tolerance rule 2 (src/grain/tolerance.ts): a grain coarser than the notation needs at least 5 distinct
+  // values. Two values at 10:00Z are local midnights in −10:00, but two cannot show days there, so they
+  // cannot show the zone either: the written offset (UTC) stands.
+  it('two values at 10:00Z, a day apart: read as written in UTC, no zone from the alignment', async () => {
+    const c = await column(['2024-01-01T10:00:00Z', '2024-01-02T10:00:00Z']);
+    expect(c.zone).toBe('UTC');
+    expect(c.zoneFinding.basis).toBe('written');
+    expect(c.findings.join(' ')).not.toContain('-10:00');
+  });
+
+  it('the same hour over a fortnight is enough: the zone is found by alignment', async () => {
+    // 14 distinct local midnights of −10:00 (Pacific/Honolulu keeps −10:00 all year; IANA tzdb, from memory).
+    const values = Array.from({ length: 14 }, (_, k) => new Date(Date.UTC(2024, 0, 1 + k, 10)).toISOString().replace('.000', ''));
+    const c = await column(values);
+    expect(c.zoneFinding.basis).toBe('aligned');
+    expect(c.grain).toMatchObject({ unit: 'day' });
+  });
+});
+
