@@ -35,6 +35,16 @@ function formulaIn(b: ByteBatch, i: number): boolean {
   return false;
 }
 
+/**
+ * Of the rows of `b` flagged 1 (a field may be formula-like), keeps flagged those with a formula-like field
+ * (formulaIn) and clears the others; returns the flags, or null when no row stays flagged.
+ */
+function keepFormulaRows(b: ByteBatch, flags: Uint8Array): Uint8Array | null {
+  let any = 0;
+  for (let i = 0; i < b.length; i++) if (flags[i] === 1) { if (formulaIn(b, i)) any = 1; else flags[i] = 0; }
+  return any === 0 ? null : flags;
+}
+
 /** Encodes rows of byte batches (all columns requested, in header order) and their buckets. */
 export class CsvRowEncoder {
   private readonly writer: CsvByteWriter;
@@ -132,10 +142,7 @@ export class CsvRowEncoder {
     const n = b.length;
     if (this.flags.length < n) this.flags = new Uint8Array(n);
     const flags = this.flags;
-    if (this.gather!.formulaRows(flags) === 0) return null;
-    let any = 0;
-    for (let i = 0; i < n; i++) if (flags[i] === 1) { if (formulaIn(b, i)) any = 1; else flags[i] = 0; }
-    return any === 0 ? null : flags;
+    return this.gather!.formulaRows(flags) === 0 ? null : keepFormulaRows(b, flags);
   }
 
   /**
@@ -156,9 +163,7 @@ export class CsvRowEncoder {
     }
     let any = 0;
     for (let i = 0; i < n; i++) any |= flags[i]!;
-    if (any === 0) return null;
-    for (let i = 0; i < n; i++) if (flags[i] === 1 && !formulaIn(b, i)) flags[i] = 0;
-    return flags;
+    return any === 0 ? null : keepFormulaRows(b, flags);
   }
 
   /**

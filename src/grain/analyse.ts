@@ -1,6 +1,6 @@
 // Turns one accumulated column into its findings: the reading kept, the zone, the grain under the tolerance
 // rule, the level, the cadence and the first and last values.
-import { CANDIDATES, DAY, isPeriodGrain } from './candidates.js';
+import { CANDIDATES, isPeriodGrain } from './candidates.js';
 import { cadenceOf, periodKey } from './cadence.js';
 import type { GrainColumn, Reading } from './column.js';
 import { BoundaryCounter } from './counter.js';
@@ -9,7 +9,7 @@ import { explainColumn } from './explain.js';
 import type { StoredValue } from './store.js';
 import type { Cadence, ColumnGrain, Grain } from './types.js';
 import { grainWords } from './words.js';
-import { resolveChangingOffsets, resolveGiven, resolveOneOffset, type ZoneResolution } from './zone-resolve.js';
+import { resolveChangingOffsets, resolveGiven, resolveOneOffset, writtenOffset, type ZoneResolution } from './zone-resolve.js';
 
 export interface AnalyseOptions {
   /** Zone to read instants in (--zone); otherwise inferred. */
@@ -92,7 +92,7 @@ export function analyseColumn(col: GrainColumn, options: AnalyseOptions = {}): C
     // The zone was found because the values fall on its local hours or days, but too few of them to claim
     // that coarser grain (the tolerance rule): the same few values cannot name the zone either. Keep the
     // written offset.
-    zone = resolveOneOffset(values, [...r.offsets.keys()][0] ?? 0, DAY, sampled);
+    zone = writtenOffset(values, [...r.offsets.keys()][0] ?? 0, sampled);
     choice = written;
   }
   const grain = choice ? withNotationUnit(choice.grain, r.periodUnit) : null;

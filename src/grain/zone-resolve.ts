@@ -102,6 +102,17 @@ export function resolveOneOffset(values: readonly StoredValue[], offset: number,
     const wall = zoneWall(getZone(g.zones[0]!));
     return { finding, wall: (v) => wall(v.ms) };
   }
+  return writtenOffset(values, offset, sampled);
+}
+
+/**
+ * Instants read with the one offset they are written with; the zones that keep that offset over all the
+ * values are its alternatives (none listed for UTC).
+ */
+export function writtenOffset(values: readonly StoredValue[], offset: number, sampled: boolean): ZoneResolution {
+  const written: ZoneResolution = {
+    finding: { zone: fixedName(offset), basis: 'written', offsets: [offset], alternatives: [], sampled }, wall: asWritten,
+  };
   if (offset !== 0) {
     const same = matchZones(values, sameOffset).find((g) => g.offsets.length === 1);
     if (same) written.finding.alternatives = same.zones;

@@ -9,7 +9,7 @@ import type { ByteBatch } from '../table/types.js';
 import { inferNumberFormat } from '../numbers/infer.js';
 import { makeNumberParser } from '../numbers/parse.js';
 import { emptyFieldScan, scanField } from './byte-scan.js';
-import { DistinctCounter, packShortHi, packShortLo, shortSlot } from './distinct.js';
+import { DistinctCounter, packShortHi, packShortLo } from './distinct.js';
 import { NumericEvidence } from './numeric.js';
 
 /** Non-empty values from the head of the column used to infer its number format. */
@@ -170,9 +170,8 @@ export class ProfileColumn {
         // number seen before is taken from this column's cache of short numbers, without reading it again.
         const lo = packShortLo(buf, s, e - s);
         const hi = packShortHi(buf, s, e - s);
-        distinct.addShort(buf, s, e, lo, hi);
+        const slot = distinct.addShort(buf, s, e, lo, hi);
         const cache = this.shortNumbers ?? (this.shortNumbers = new ShortNumbers());
-        const slot = shortSlot(lo, hi);
         if (cache.lo[slot] === lo && cache.hi[slot] === hi) {
           numeric.addRepeat(cache.value[slot]!, cache.shape[slot]!);
         } else if (numeric.addPlainBytes(buf, s, e)) {

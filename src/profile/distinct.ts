@@ -79,12 +79,13 @@ export class DistinctCounter {
   /**
    * addBytes() of a value of at most six bytes while the exact table runs (not `sketching`), given its
    * packShortLo and packShortHi: a value in the cache is counted without hashing or comparing its bytes.
+   * Returns the value's cache slot (shortSlot), for a cache of the caller's kept beside this one.
    */
-  addShort(buf: Uint8Array, start: number, end: number, lo: number, hi: number): void {
+  addShort(buf: Uint8Array, start: number, end: number, lo: number, hi: number): number {
     const slot = shortSlot(lo, hi);
     if (this.shortLo[slot] === lo && this.shortHi[slot] === hi) {
       this.table.count(this.shortEntries[slot]!);
-      return;
+      return slot;
     }
     const hash = hashBytes(buf, start, end);
     const e = this.table.size < this.cap ? this.table.addBytesEntry(buf, start, end, hash) : this.table.addBytesIfPresent(buf, start, end, hash);
@@ -95,6 +96,7 @@ export class DistinctCounter {
     } else {
       this.startSketch(hash);
     }
+    return slot;
   }
 
   /** addBytes() with the bytes' hash (hashBytes) already made. */
