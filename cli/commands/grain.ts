@@ -21,7 +21,8 @@ How a grain is decided:
   A grain holds when at least 99% of the parsed values lie on its boundaries; the others are reported as
   exceptions (count and first examples with lines). A grain coarser than the notation states is claimed only
   from at least 5 distinct values, and only when values of the finer grain would land on it by chance less
-  than once in a thousand. The coarsest grain that holds wins. A zone other than the written offset is read
+  than once in a thousand. The coarsest grain that holds wins. Instants are never finer than written: values
+  written to the second (08:15:00) are at least seconds, to the minute (08:15) at least minutes. A zone other than the written offset is read
   from the values (UTC instants on another zone's local midnights) only with the same evidence. Periods (a
   day or longer) are ordinal; instants (finer than a day) are quantitative. Numeric dates such as 03/04/2024
   are never guessed: the column must show which field is the day, or you pass --day-first or --month-first.

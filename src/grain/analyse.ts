@@ -1,5 +1,7 @@
 // Turns one accumulated column into its findings: the reading kept, the zone, the grain under the tolerance
 // rule, the level, the cadence and the first and last values.
+import type { UnitName } from '../calendar/types.js';
+import { commonWrittenUnit, makeWrittenUnitReader } from '../time/written-unit.js';
 import { CANDIDATES, isPeriodGrain } from './candidates.js';
 import { cadenceOf, periodKey } from './cadence.js';
 import type { GrainColumn, Reading } from './column.js';
@@ -58,9 +60,21 @@ function coarser(a: GrainChoice | null, b: GrainChoice | null): boolean {
   return ms(a) > ms(b);
 }
 
-function notationOf(r: Reading): Grain | null {
-  if (r.kinds.period === 0 || r.kinds.period < r.parsed) return null;
-  return notationGrain(r.periodUnit ?? r.format.unit, r.format.fiscalStart?.month ?? 10);
+/**
+ * The grain the notation itself states: the unit periods name ('day' for 2021-04-05), or for instants and
+ * wall-clock readings the clock unit every value writes ('second' for 08:15:00, none when any value writes
+ * a fraction). Read from the stored values, the exact distinct values or the sample.
+ */
+function notationOf(r: Reading, values: readonly StoredValue[]): { grain: Grain; unit: UnitName } | null {
+  if (r.kinds.period === 0) {
+    const unit = commonWrittenUnit(makeWrittenUnitReader(r.format), values.map((v) => v.text));
+    const grain = unit === null ? null : notationGrain(unit);
+    return grain === null ? null : { grain, unit: unit! };
+  }
+  if (r.kinds.period < r.parsed) return null;
+  const unit = r.periodUnit ?? r.format.unit;
+  const grain = notationGrain(unit, r.format.fiscalStart?.month ?? 10);
+  return grain === null ? null : { grain, unit: unit! };
 }
 
 function cadence(grain: Grain, values: readonly StoredValue[], wall: (v: StoredValue) => number, rows: number): Cadence {
@@ -82,7 +96,8 @@ export function analyseColumn(col: GrainColumn, options: AnalyseOptions = {}): C
   if (col.notTime || col.readings.length === 0) return null;
   const { reading: r, ambiguity, evidence } = pickReading(col);
   const { values, sampled } = storedValues(r);
-  const choose = { notation: notationOf(r), endHint: namesAnEnd(col.name) };
+  const notation = notationOf(r, values);
+  const choose = { notation: notation?.grain ?? null, endHint: namesAnEnd(col.name) };
   const writtenCounter = r.store.stream ?? counterOf(values, (v) => v.wall);
   const written = chooseGrain(writtenCounter, { ...choose, distinctKnown: r.store.stream === null });
   let zone = resolveZone(r, values, sampled, written, options);
@@ -107,7 +122,7 @@ export function analyseColumn(col: GrainColumn, options: AnalyseOptions = {}): C
     formatLabel: r.format.label,
     formatEvidence: evidence,
     ambiguity,
-    notationUnit: choose.notation ? (r.periodUnit ?? r.format.unit) : null,
+    notationUnit: notation?.unit ?? null,
     values: { parsed: r.parsed, empty: col.empty, invalid: r.invalid },
     invalidExamples: r.invalidExamples.map((e) => ({ ...e })),
     grain,
@@ -132,7 +147,7 @@ function otherReadings(col: GrainColumn, kept: Reading, grain: Grain, choose: { 
   for (const other of col.readings) {
     if (other === kept || other.invalid !== kept.invalid) continue;
     const { values } = storedValues(other);
-    const g = chooseGrain(counterOf(values, (v) => v.wall), { ...choose, notation: notationOf(other) })?.grain;
+    const g = chooseGrain(counterOf(values, (v) => v.wall), { ...choose, notation: notationOf(other, values)?.grain ?? null })?.grain;
     if (g && (g.unit !== grain.unit || g.step !== grain.step || g.anchor !== grain.anchor)) differ.push(`${other.format.label}: ${grainWords(g)}`);
   }
   return differ.length === 0

@@ -49,6 +49,11 @@ function zoneSentence(c: ColumnGrain, firstMs: number, kinds: { instant: number;
   }
 }
 
+/** "The only value", "Both values", "All 12 values": the subject of a sentence about every value. */
+function allValues(n: number): string {
+  return n === 1 ? 'The only value' : n === 2 ? 'Both values' : `All ${count(n)} values`;
+}
+
 function grainSentence(c: ColumnGrain, g: Grain, firstMs: number): string {
   const cov = c.coverage!;
   const on = boundaryWords(g);
@@ -57,11 +62,17 @@ function grainSentence(c: ColumnGrain, g: Grain, firstMs: number): string {
   const local = where && (g.unit === 'day' || isPeriodGrain(g)) ? `local ${on}` : on;
   const byNotation = c.notationUnit !== null && g.step === 1 && g.anchor === 'start'
     && (g.unit === c.notationUnit || (g.unit === 'fiscal-year' && c.notationUnit === 'fiscal-year'));
+  if (byNotation && cov.exceptions === 0 && !isPeriodGrain(g)) {
+    // Instants and readings written to the second (or minute, hour): the notation is the floor.
+    const written = `${allValues(cov.onGrain)} ${cov.onGrain === 1 ? 'is' : 'are'} written`;
+    const few = cov.onGrain === 1 ? 'one value is too few' : 'too few of them lie on coarser boundaries';
+    return `${written} to the ${g.unit}, and ${few} to claim a coarser grain, so this column holds ${grainWords(g)}.`;
+  }
   if (byNotation && cov.exceptions === 0) {
-    return `${cov.onGrain === 1 ? 'The only value names' : `All ${count(cov.onGrain)} values name`} ${unitPlural(c.notationUnit!)} by their notation, and no coarser grain holds, so this column holds ${grainWords(g)}.`;
+    return `${allValues(cov.onGrain)} ${cov.onGrain === 1 ? 'names' : 'name'} ${unitPlural(c.notationUnit!)} by their notation, and no coarser grain holds, so this column holds ${grainWords(g)}.`;
   }
   const head = cov.exceptions === 0
-    ? `${cov.onGrain === 1 ? 'The only value falls' : `All ${count(cov.onGrain)} values fall`} on ${local}${where}`
+    ? `${allValues(cov.onGrain)} ${cov.onGrain === 1 ? 'falls' : 'fall'} on ${local}${where}`
     : `${count(cov.onGrain)} of ${count(cov.onGrain + cov.exceptions)} values (${percent(cov.share)}) fall on ${local}${where}`;
   let s = `${head}, so this column holds ${grainWords(g)}`;
   if (c.zoneFinding.basis === 'aligned') s += alsoZones(c.zoneFinding);

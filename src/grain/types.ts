@@ -91,7 +91,11 @@ export interface ColumnGrain {
   formatEvidence: string | null;
   /** Set when the format could not be told apart (03/04/2021): the candidates, and what to pass. */
   ambiguity: string[] | null;
-  /** The unit the written notation itself names ('day' for 2021-04-05, 'epi-week' for 2024-EW07); null for instants. */
+  /**
+   * The unit the written notation itself names: 'day' for 2021-04-05, 'epi-week' for 2024-EW07, and for
+   * instants and wall-clock readings the clock unit every value writes ('second' for 2021-04-05T08:15:00Z,
+   * 'minute' for 08:15); null when the values write a fraction of a second or differ in kind.
+   */
   notationUnit: UnitName | null;
   values: ValueCounts;
   /** The first few invalid values with their lines. */

@@ -112,9 +112,10 @@ function finishDay(s: string, end: number, y: number, m: number, day: number, ou
   return fillFromScan(sc, out);
 }
 
-/** The parser of a month-name format id. */
-export function makeMonthNameParser(id: 'month-name-year' | 'month-name-day-year' | 'day-month-name-year', pivot: number | undefined): TimeParser {
-  const sc = newScan();
+/** The parser of a month-name format id; it reads into `sc` (pass one to look at the shape of the last value read). */
+export function makeMonthNameParser(
+  id: 'month-name-year' | 'month-name-day-year' | 'day-month-name-year', pivot: number | undefined, sc: Scan = newScan(),
+): TimeParser {
   if (id === 'month-name-year') return (t, out) => monthYearInto(t, out, sc, pivot);
   if (id === 'month-name-day-year') return (t, out) => monthDayYearInto(t, out, sc, pivot);
   return (t, out) => dayMonthYearInto(t, out, sc, pivot);
