@@ -13,12 +13,18 @@ function num(n: number, exact = true): string {
   return `${exact ? '' : '≈'}${n.toLocaleString('en-US')}`;
 }
 
+/** "1 row", "13,513 rows". */
+function plural(n: number, noun: string): string {
+  return `${num(n)} ${noun}${n === 1 ? '' : 's'}`;
+}
+
 /** The human output of `quern profile`. */
 export function renderProfileText(report: ProfileReport, options: TextOptions = {}): string {
   const width = Math.max(60, options.width ?? 100);
   const out: string[] = [];
   const rejected = report.rejectedRows > 0 ? ` (${num(report.rejectedRows)} rejected by the reader)` : '';
-  out.push(`${terminalSafe(report.file)}: ${num(report.rows)} rows${rejected}, ${report.columns.length} columns`);
+  const cols = report.columns.length;
+  out.push(`${terminalSafe(report.file)}: ${plural(report.rows, 'row')}${rejected}, ${plural(cols, 'column')}`);
   for (const d of report.rejectedExamples ?? []) out.push(`  ${terminalSafe(formatDiagnostic(d))}`);
   const s = report.shape;
   const kind = s.kind === 'aggregated' ? `aggregated, key ${s.key.join(' × ')}` : `items${s.key.length ? `, key ${s.key.join(' × ')}` : ''}`;

@@ -97,4 +97,11 @@ describe('quern profile', () => {
     const j = await runCli(['profile', '-', '--json'], { stdin: csv });
     expect(JSON.parse(j.stdout).rejectedExamples).toEqual([expect.objectContaining({ code: 'ragged-row', file: '-', line: 3 })]);
   });
+
+  it('the heading counts in the singular when there is one row or one column (common practice: English number agreement)', async () => {
+    const one = await runCli(['profile', '-'], { stdin: 'ts\n2024-03-05T08:15:00Z\n' });
+    expect(one.stdout.split('\n')[0]).toBe('-: 1 row, 1 column');
+    const two = await runCli(['profile', '-'], { stdin: 'ts,n\n2024-03-05T08:15:00Z,1\n2024-03-06T08:15:00Z,2\n' });
+    expect(two.stdout.split('\n')[0]).toBe('-: 2 rows, 2 columns');
+  });
 });
