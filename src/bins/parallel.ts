@@ -6,7 +6,7 @@ import { lineBases, mergeSummaries, planRanges, runRanges, siblingModule } from 
 import { openTable, type TableOptions } from '../table/index.js';
 import { buildBuckets, planNeedsData } from './build.js';
 import { firstSample, readingFor, sampleIntegers } from './byte-pass.js';
-import type { BucketRangeOptions } from './range-task.js';
+import { bucketRange, type BucketRangeOptions } from './range-task.js';
 import { bucketTable, type BucketRunOptions, type BucketRunResult } from './run.js';
 import { BucketTally, type TallyPartial } from './tally.js';
 
@@ -53,7 +53,7 @@ export async function bucketFile(file: string, options: BucketRunOptions, table:
     ...(table.chunkSize !== undefined ? { chunkSize: table.chunkSize } : {}),
   };
   const outcomes = await runRanges<BucketRangeOptions, TallyPartial>({
-    moduleUrl: siblingModule(import.meta.url, 'range-task'), exportName: 'bucketRange', file, options: task, ranges, threads: threads.threads,
+    moduleUrl: siblingModule(import.meta.url, 'range-task'), exportName: 'bucketRange', task: bucketRange, file, options: task, ranges, threads: threads.threads,
   });
   const bases = lineBases(outcomes);
   const read = mergeSummaries(outcomes, bases, table.maxExamples ?? READER_EXAMPLES);

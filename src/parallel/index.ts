@@ -3,6 +3,7 @@
 export type { ByteRange, RangeOutcome, RangeHooks, RangeTask, RangeRun } from './types.js';
 export { planRanges } from './plan.js';
 export { runRanges } from './pool.js';
+export { startRangeWorkers, bundledWorker, type RangeWorkers } from './workers.js';
 export { lineBases, mergeSummaries } from './lines.js';
 export { siblingModule, isSourceModule } from './module-url.js';
 export { openRange, type RangeReadOptions } from './open-range.js';

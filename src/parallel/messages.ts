@@ -1,15 +1,13 @@
 // Messages between the pool and its range workers (structured-clonable plain data).
 import type { ByteRange, RangeOutcome } from './types.js';
 
-/** What a worker is started with. */
+/** What a worker is started with: the task it runs. The file and options come with each range. */
 export interface WorkerSetup {
   moduleUrl: string;
   exportName: string;
-  file: string;
-  options: unknown;
 }
 
-export type ToWorker = { type: 'range'; range: ByteRange } | { type: 'stop' };
+export type ToWorker = { type: 'range'; range: ByteRange; file: string; options: unknown } | { type: 'stop' };
 
 export type FromWorker =
   | { type: 'ready' }

@@ -1,15 +1,15 @@
 // Runs a range task over the byte ranges of a file on several threads, the main thread included, and
 // hands the outcomes back in file order with every boundary verified: a range that did not start where
 // the previous one stopped (a line feed inside a quoted field) is read again from that stop.
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import { QuernError, type ErrorCode } from '../errors.js';
-import type { FromWorker, ToWorker, WorkerSetup } from './messages.js';
-import { isSourceModule, siblingModule } from './module-url.js';
+import type { FromWorker, ToWorker } from './messages.js';
+import { startRangeWorkers } from './workers.js';
 import type { ByteRange, RangeOutcome, RangeRun, RangeTask } from './types.js';
 
 /** Runs `run.exportName` of `run.moduleUrl` over every range; rejects with the first error a range throws. */
 export async function runRanges<O, P>(run: RangeRun<O>): Promise<Array<RangeOutcome<P>>> {
-  const task = await loadTask<O, P>(run.moduleUrl, run.exportName);
+  const task = run.task !== undefined ? (run.task as RangeTask<O, P>) : await loadTask<O, P>(run.moduleUrl, run.exportName);
   const n = run.ranges.length;
   const outcomes = new Array<RangeOutcome<P>>(n);
   const progress = new Float64Array(n);
@@ -32,14 +32,20 @@ export async function runRanges<O, P>(run: RangeRun<O>): Promise<Array<RangeOutc
   };
   const main = run.mainTakesPart !== false;
   const workerCount = main ? Math.max(0, Math.min(run.threads - 1, n - 1)) : Math.max(1, Math.min(run.threads, n));
-  const workers: Worker[] = [];
-  const setup: WorkerSetup = { moduleUrl: run.moduleUrl, exportName: run.exportName, file: run.file, options: run.options };
-  const lanes: Array<Promise<void>> = [];
-  for (let w = 0; w < workerCount; w++) {
-    const worker = spawnWorker(setup);
-    workers.push(worker);
-    lanes.push(workerLane(worker, take, (o) => (outcomes[o.range.index] = o as RangeOutcome<P>), onBytes));
+  const started = run.workers;
+  if (started !== undefined && (started.setup.moduleUrl !== run.moduleUrl || started.setup.exportName !== run.exportName)) {
+    started.stop();
+    throw new Error(`range workers started for ${started.setup.exportName} cannot run ${run.exportName}`);
   }
+  // Threads started ahead are used first (the extra ones stopped); more are started if they are too few.
+  const ahead = started?.threads ?? [];
+  const workers: Worker[] = ahead.slice(0, workerCount);
+  for (const extra of ahead.slice(workerCount)) void extra.terminate();
+  const more = startRangeWorkers(run.moduleUrl, run.exportName, workerCount - workers.length);
+  workers.push(...more.threads);
+  const lanes: Array<Promise<void>> = [];
+  const job = { file: run.file, options: run.options };
+  for (const worker of workers) lanes.push(workerLane(worker, job, take, (o) => (outcomes[o.range.index] = o as RangeOutcome<P>), onBytes));
   if (main) lanes.unshift(mainLane());
   try {
     const settled = await Promise.allSettled(lanes.map((l) => l.catch((e: unknown) => { failed = true; throw e; })));
@@ -64,18 +70,10 @@ async function loadTask<O, P>(moduleUrl: string, exportName: string): Promise<Ra
   return task as RangeTask<O, P>;
 }
 
-/** A worker thread running `worker.ts`; from the TypeScript sources (tests) through tsx's loader. */
-function spawnWorker(setup: WorkerSetup): Worker {
-  const here = import.meta.url;
-  const url = siblingModule(here, 'worker');
-  if (!isSourceModule(here)) return new Worker(new URL(url), { workerData: setup });
-  const boot = `import('tsx/esm/api').then((a) => { a.register(); return import(${JSON.stringify(url)}); })`;
-  return new Worker(boot, { eval: true, workerData: setup });
-}
-
 /** Feeds ranges to one worker until none are left; rejects on the worker's first error. */
 function workerLane(
   worker: Worker,
+  job: { file: string; options: unknown },
   take: () => ByteRange | undefined,
   done: (o: RangeOutcome<unknown>) => void,
   onBytes: (index: number, bytes: number) => void,
@@ -92,7 +90,7 @@ function workerLane(
     const feed = (): void => {
       const r = take();
       if (r === undefined) end();
-      else worker.postMessage({ type: 'range', range: r } satisfies ToWorker);
+      else worker.postMessage({ type: 'range', range: r, file: job.file, options: job.options } satisfies ToWorker);
     };
     worker.on('message', (m: FromWorker) => {
       if (m.type === 'ready') feed();

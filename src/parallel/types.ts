@@ -1,5 +1,6 @@
 // Plain data of a read split into byte ranges: what a range is and what a range task hands back.
 import type { ReadSummary } from '../table/types.js';
+import type { RangeWorkers } from './workers.js';
 
 /** Bytes [start, end) of a plain file whose records are read by one task; start 0 means "after the header". */
 export interface ByteRange {
@@ -37,7 +38,15 @@ export interface RangeRun<O> {
   /** URL of the module exporting the task (see `siblingModule`). */
   moduleUrl: string;
   exportName: string;
+  /**
+   * The same task, already loaded, for the ranges the main thread reads. Without it the main thread imports
+   * `moduleUrl`, which in the bundled binary loads a second copy of the modules (about 0.1 s) and warms its
+   * code apart from the copy already warm.
+   */
+  task?: RangeTask<O, unknown>;
   file: string;
+  /** Worker threads already started for this task (startRangeWorkers); runRanges stops them when done. */
+  workers?: RangeWorkers;
   /** Structured-clonable options handed to every task. */
   options: O;
   ranges: ByteRange[];

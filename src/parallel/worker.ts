@@ -1,4 +1,5 @@
-// The entry of a range worker thread: loads the task module once, then runs the ranges it is sent.
+// The serving loop of a range worker thread: loads the task once, then runs the ranges it is sent. Started
+// by worker-entry.ts (the compiled modules) or by the binary's bundled worker, which hands it its tasks.
 import { parentPort, workerData, type MessagePort } from 'node:worker_threads';
 import { isQuernError } from '../errors.js';
 import type { RangeTask } from './types.js';
@@ -9,20 +10,26 @@ type FromWorkerError = Extract<FromWorker, { type: 'error' }>['error'];
 /** Posts progress at most every 4 MiB of a range, so messages cost nothing measurable. */
 const STEP = 4 << 20;
 
-// Loaded outside a worker (a tool that imports every module), it does nothing.
-if (parentPort !== null && workerData !== null) await serve(parentPort, workerData as WorkerSetup);
+/**
+ * Serves the pool when run in a range worker (does nothing elsewhere). `known` maps export names to tasks
+ * already loaded (the bundled worker's); a task not among them is imported from the setup's module URL.
+ */
+export async function serveRanges(known: Readonly<Record<string, RangeTask<unknown, unknown>>> = {}): Promise<void> {
+  if (parentPort === null || workerData === null) return;
+  await serve(parentPort, workerData as WorkerSetup, known);
+}
 
-/** Answers the pool: runs each range it is sent and posts its outcome, progress or error. */
-async function serve(port: MessagePort, setup: WorkerSetup): Promise<void> {
-  const mod = (await import(setup.moduleUrl)) as Record<string, RangeTask<unknown, unknown>>;
-  const task = mod[setup.exportName];
+async function serve(port: MessagePort, setup: WorkerSetup, known: Readonly<Record<string, RangeTask<unknown, unknown>>>): Promise<void> {
+  const task = Object.prototype.hasOwnProperty.call(known, setup.exportName)
+    ? known[setup.exportName]
+    : ((await import(setup.moduleUrl)) as Record<string, RangeTask<unknown, unknown>>)[setup.exportName];
   port.on('message', (msg: ToWorker) => {
     if (msg.type === 'stop') {
       port.close();
       return;
     }
     const { range } = msg;
-    if (task === undefined) {
+    if (typeof task !== 'function') {
       port.postMessage({ type: 'error', index: range.index, error: { name: 'Error', message: `${setup.moduleUrl} has no export ${setup.exportName}` } } satisfies FromWorker);
       return;
     }
@@ -33,7 +40,7 @@ async function serve(port: MessagePort, setup: WorkerSetup): Promise<void> {
         port.postMessage({ type: 'progress', index: range.index, bytes } satisfies FromWorker);
       }
     };
-    task(setup.file, setup.options, range, { onProgress }).then(
+    task(msg.file, msg.options, range, { onProgress }).then(
       (outcome) => port.postMessage({ type: 'done', index: range.index, outcome } satisfies FromWorker),
       (e: unknown) => port.postMessage({ type: 'error', index: range.index, error: serialiseError(e) } satisfies FromWorker),
     );

@@ -5,6 +5,7 @@
 import { Worker } from 'node:worker_threads';
 import { QuernError, type ErrorCode } from '../errors.js';
 import type { TableOptions } from '../table/types.js';
+import { bundledWorker } from '../parallel/workers.js';
 import type { ColumnsJob, ColumnsResult } from './columns-task.js';
 
 /** Smallest plain file whose columns are split between threads. */
@@ -86,9 +87,11 @@ type WorkerReply =
   | { ok: true; result: ColumnsResult }
   | { ok: false; error: { name: string; message: string; code?: string; hint?: string } };
 
-/** The worker: column-worker.js from dist, or the TypeScript source through tsx's loader (tests). */
+/** The worker: the binary's bundled one, column-worker.js from dist, or the TypeScript source through tsx (tests). */
 function spawn(job: ColumnsJob): Worker {
   const here = import.meta.url;
+  const bundled = bundledWorker(here, 'column-worker');
+  if (bundled !== null) return new Worker(bundled, { workerData: job });
   if (!here.endsWith('.ts')) return new Worker(new URL('./column-worker.js', here), { workerData: job });
   const url = new URL('./column-worker.ts', here).href;
   const boot = `import('tsx/esm/api').then((a) => { a.register(); return import(${JSON.stringify(url)}); })`;

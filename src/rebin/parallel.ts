@@ -3,13 +3,13 @@
 // partials are merged in file order. Only what merges exactly goes parallel; everything else — standard
 // input, gzip, NDJSON, the reference engine, small files, apportioned source periods — is read on one
 // thread, and so is the whole file again when a range met an error, so that the error names its true line.
-import { lineBases, mergeSummaries, planRanges, runRanges, siblingModule } from '../parallel/index.js';
-import type { RangeOutcome } from '../parallel/index.js';
+import { lineBases, mergeSummaries, planRanges, runRanges, siblingModule, startRangeWorkers } from '../parallel/index.js';
+import type { RangeOutcome, RangeWorkers } from '../parallel/index.js';
 import { openTable } from '../table/index.js';
 import type { TableOptions, TableReader } from '../table/types.js';
 import type { RebinPartial } from './merge.js';
 import { mergePartials } from './merge.js';
-import type { RebinRangeOptions } from './range-task.js';
+import { rebinRange, type RebinRangeOptions } from './range-task.js';
 import { finishRebin, freshSetup, prepareRebin, rebin, sampleFormats } from './rebin.js';
 import type { PreparedRebin } from './rebin.js';
 import type { ReadFormats } from './setup.js';
@@ -60,37 +60,46 @@ export async function rebinFile(file: string, options: RebinOptions, table: Tabl
   const reader = await openTable(file, table);
   let formats: ReadFormats;
   let p: PreparedRebin;
+  let workers: RangeWorkers | null = null;
+  const moduleUrl = siblingModule(import.meta.url, 'range-task');
   try {
-    if (!parallelFits(reader, options, table, threads)) {
-      threads.onPlan?.({ threads: 1, ranges: 1, mended: 0, serial: 'not-eligible' });
-      return await rebin(reader, options);
+    try {
+      if (!parallelFits(reader, options, table, threads)) {
+        threads.onPlan?.({ threads: 1, ranges: 1, mended: 0, serial: 'not-eligible' });
+        return await rebin(reader, options);
+      }
+      // The workers start now, so that their start-up overlaps the sampling and the planning below.
+      workers = startRangeWorkers(moduleUrl, 'rebinRange', threads.threads - 1);
+      p = prepareRebin(reader, options);
+      formats = await sampleFormats(reader, options, p);
+    } finally {
+      reader.close();
     }
-    p = prepareRebin(reader, options);
-    formats = await sampleFormats(reader, options, p);
+    const size = reader.totalBytes!;
+    const per = threads.bytesPerRange ?? Math.max(8 << 20, Math.ceil(size / (threads.threads * 8)));
+    const ranges = await planRanges(file, size, per, { ...(table.cwd !== undefined ? { cwd: table.cwd } : {}), bodyStart: reader.bodyStart });
+    if (ranges.length < 2) {
+      workers.stop();
+      threads.onPlan?.({ threads: 1, ranges: 1, mended: 0, serial: 'one-range' });
+      return await oneThread(file, options, table);
+    }
+    const task: RebinRangeOptions = {
+      options, formats, ...(table.cwd !== undefined ? { cwd: table.cwd } : {}), ...(table.delimiter !== undefined ? { delimiter: table.delimiter } : {}),
+      chunkSize: table.chunkSize ?? RANGE_CHUNK,
+    };
+    const outcomes = await runRanges<RebinRangeOptions, RebinPartial>({
+      moduleUrl, exportName: 'rebinRange', task: rebinRange, workers, file, options: task, ranges, threads: threads.threads,
+      ...(table.onProgress !== undefined ? { onProgress: (b: number) => table.onProgress!(b, size) } : {}),
+    });
+    // A range that met an error: read the whole file on one thread, so the error is the one a whole read meets.
+    const mended = outcomes.filter((o, k) => o.range.start !== ranges[k]!.start).length;
+    const error = outcomes.some((o) => o.partial.error !== null);
+    threads.onPlan?.({ threads: Math.min(threads.threads, ranges.length), ranges: ranges.length, mended, serial: error ? 'range-error' : null });
+    if (error) return await oneThread(file, options, table);
+    return merged(reader, options, p, formats, outcomes);
   } finally {
-    reader.close();
+    workers?.stop();
   }
-  const size = reader.totalBytes!;
-  const per = threads.bytesPerRange ?? Math.max(8 << 20, Math.ceil(size / (threads.threads * 8)));
-  const ranges = await planRanges(file, size, per, { ...(table.cwd !== undefined ? { cwd: table.cwd } : {}), bodyStart: reader.bodyStart });
-  if (ranges.length < 2) {
-    threads.onPlan?.({ threads: 1, ranges: 1, mended: 0, serial: 'one-range' });
-    return oneThread(file, options, table);
-  }
-  const task: RebinRangeOptions = {
-    options, formats, ...(table.cwd !== undefined ? { cwd: table.cwd } : {}), ...(table.delimiter !== undefined ? { delimiter: table.delimiter } : {}),
-    chunkSize: table.chunkSize ?? RANGE_CHUNK,
-  };
-  const outcomes = await runRanges<RebinRangeOptions, RebinPartial>({
-    moduleUrl: siblingModule(import.meta.url, 'range-task'), exportName: 'rebinRange', file, options: task, ranges, threads: threads.threads,
-    ...(table.onProgress !== undefined ? { onProgress: (b: number) => table.onProgress!(b, size) } : {}),
-  });
-  // A range that met an error: read the whole file on one thread, so the error is the one a whole read meets.
-  const mended = outcomes.filter((o, k) => o.range.start !== ranges[k]!.start).length;
-  const error = outcomes.some((o) => o.partial.error !== null);
-  threads.onPlan?.({ threads: Math.min(threads.threads, ranges.length), ranges: ranges.length, mended, serial: error ? 'range-error' : null });
-  if (error) return oneThread(file, options, table);
-  return merged(reader, options, p, formats, outcomes);
 }
 
 function merged(reader: TableReader, options: RebinOptions, p: PreparedRebin, formats: ReadFormats,

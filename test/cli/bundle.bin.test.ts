@@ -1,11 +1,13 @@
-// The bundled binary (dist/quern.js, made by cli/bundle.mjs) starts worker threads that load the compiled
-// modules of dist/src: a run on two threads must give what one thread gives. The file is over 32 MB, the
-// size from which the CLI reads a file in byte ranges (cli/threads.ts).
+// The bundled binary (dist/quern.js, made by cli/bundle.mjs) starts its bundled worker threads
+// (dist/workers): a run on two threads must give what one thread gives. The file is over 32 MB, the size
+// from which the CLI reads a file in byte ranges (cli/threads.ts).
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import { timeFormat } from '../../src/time/format.js';
 import { afterAll, describe, expect, it } from 'vitest';
 
 const main = fileURLToPath(new URL('../../dist/quern.js', import.meta.url));
@@ -38,5 +40,33 @@ describe('dist/quern.js on two threads', () => {
     const p2 = JSON.parse(quern(['profile', file, '--json', '--threads', '2']));
     expect(p2).toEqual(p1);
     expect(p1.columns.map((c: { role: string }) => c.role)[0]).toBe('time');
+  });
+
+  const rangeWorker = fileURLToPath(new URL('../../dist/workers/range-worker.js', import.meta.url));
+  it.skipIf(!existsSync(main))('the bundled range worker carries its tasks: it runs rebinRange without importing the module named', async () => {
+    expect(existsSync(rangeWorker)).toBe(true);
+    expect(existsSync(fileURLToPath(new URL('../../dist/workers/column-worker.js', import.meta.url)))).toBe(true);
+    const file = join(dir, 'small.csv');
+    writeFileSync(file, 'ts\n2024-01-01T00:00:00Z\n2024-01-08T00:00:00Z\n2024-01-09T00:00:00Z\n');
+    // A module URL that does not exist: a worker that imported it would fail.
+    const worker = new Worker(rangeWorker, { workerData: { moduleUrl: 'file:///no/such/range-task.js', exportName: 'rebinRange' } });
+    try {
+      const outcome = await new Promise<{ partial: { counts: { used: number }; error: unknown } }>((resolve, reject) => {
+        worker.on('error', reject);
+        worker.on('message', (m: { type: string; outcome?: never; error?: { message: string } }) => {
+          if (m.type === 'ready') {
+            worker.postMessage({
+              type: 'range', range: { index: 0, start: 0, end: 1 << 20 }, file,
+              options: { options: { time: 'ts', calendar: { unit: 'iso-week', zone: 'UTC' } }, formats: { time: timeFormat('iso-date-time-offset'), numbers: [] } },
+            });
+          } else if (m.type === 'done') resolve(m.outcome!);
+          else if (m.type === 'error') reject(new Error(m.error!.message));
+        });
+      });
+      expect(outcome.partial.error).toBeNull();
+      expect(outcome.partial.counts.used).toBe(3);
+    } finally {
+      await worker.terminate();
+    }
   });
 });
