@@ -14,8 +14,11 @@ import { KernelStop, RECORD_SPAN, recordKernel, wantedMask, type RecordKernel } 
 const LF = 0x0a;
 const CR = 0x0d;
 const QUOTE = 0x22;
-/** After this many quotes met one record apart, the rest of a buffer is read by the general scanner. */
+/** After this many quotes met one record apart (or records the kernel leaves, one after another), the
+ *  rest of a buffer is read by the general scanner. */
 const DENSE_QUOTES = 8;
+/** The kernel's shortest first span after a record it left to the scanner. */
+const MIN_SPAN = 1024;
 const NO_WORDS = new Int32Array(0);
 
 /**
@@ -77,10 +80,78 @@ export class FastBody<B> {
     this.sink.begin(buf, ascii);
     this.passed = 0;
     const stop = Math.min(len, limit);
-    // The kernel reads quote-free records for every delimiter; without it only the comma has a quote-free
-    // loop (for others a variable delimiter compared per byte measured slower than the scanner's table
-    // look-up). -1 sends every record to the general scanner.
-    let quoteAt = this.kernel !== null || this.delimiter === 44 ? firstQuote(buf, 0, len) : -1;
+    const pos = this.kernel !== null
+      ? this.kernelRun(this.kernel, buf, stop, final, ascii, valid)
+      : this.wordRun(buf, stop, final, ascii, valid);
+    if (pos > 0) this.endsWithBreak = buf[pos - 1] === LF || buf[pos - 1] === CR;
+    this.ctx.account.passMany(this.passed);
+    return pos;
+  }
+
+  /**
+   * The buffer's records by the SIMD kernel. Its quote-free walk (the faster one, see structurals.wat)
+   * reads up to the record holding the next quote, which the general scanner reads. When that record's
+   * quotes are ones the walk with quotes can read (quoted fields without quotes or line breaks inside),
+   * the walk with quotes goes on from there until it meets a record it leaves (another quote, a quoted
+   * line break, a CR or quote that ends the buffer), which the general scanner reads in turn; otherwise
+   * the quote-free walk goes on to the next quote. Once DENSE_QUOTES walks in a row read no record, the
+   * general scanner reads the rest of the buffer. Returns where it stopped.
+   */
+  private kernelRun(kernel: RecordKernel, buf: Buffer, stop: number, final: boolean, ascii: boolean, valid: boolean): number {
+    const len = buf.length;
+    let quoteAt = -1;
+    let quoted = false;
+    let pos = 0;
+    let idle = 0;
+    let span = RECORD_SPAN;
+    while (pos < stop) {
+      if (idle >= DENSE_QUOTES) return this.generalRun(buf, pos, stop, final, ascii, valid);
+      if (this.dirty) {
+        // The kernel leaves `escaped` alone: make it all plain again after the scanner's quoted records.
+        this.scanner.escaped.fill(0);
+        this.dirty = false;
+      }
+      let next: number;
+      if (quoted) {
+        next = this.runKernel(kernel, true, buf, pos, len, stop, span, ascii, valid);
+        // The kernel copies its input a span at a time: after a record it left, its next walk starts with
+        // a span about twice what this one read, so records left now and then do not cost 64 KiB copies.
+        span = Math.min(RECORD_SPAN, Math.max(MIN_SPAN, 2 * (next - pos)));
+      } else {
+        if (quoteAt < pos) quoteAt = firstQuote(buf, pos, len);
+        next = this.runKernel(kernel, false, buf, pos, quoteAt, stop, RECORD_SPAN, ascii, valid);
+      }
+      idle = next > pos ? 0 : idle + 1;
+      pos = next;
+      if (pos >= stop) break;
+      const end = this.general(buf, pos, final, ascii, valid);
+      if (end < 0) break;
+      quoted = quoteAt < end && this.simpleQuotes();
+      pos = end;
+    }
+    return pos;
+  }
+
+  /** True when the scanner's last record is on one line and no field of it holds doubled quotes. */
+  private simpleQuotes(): boolean {
+    const { scanner } = this;
+    if (scanner.breaks !== 1) return false;
+    const n = Math.min(scanner.fieldCount, scanner.escaped.length);
+    for (let k = 0; k < n; k++) if (scanner.escaped[k] === 1) return false;
+    return true;
+  }
+
+  /**
+   * The buffer's records without the kernel: for the comma, the word loop reads the records before the
+   * next quote, the general scanner the record holding it; for other delimiters (and once quotes stand in
+   * record after record) the general scanner reads them all. Returns where it stopped.
+   */
+  private wordRun(buf: Buffer, stop: number, final: boolean, ascii: boolean, valid: boolean): number {
+    const len = buf.length;
+    // Without the kernel only the comma has a quote-free loop (for others a variable delimiter compared
+    // per byte measured slower than the scanner's table look-up). -1 sends every record to the general
+    // scanner.
+    let quoteAt = this.delimiter === 44 ? firstQuote(buf, 0, len) : -1;
     let dense = 0;
     let pos = 0;
     while (pos < stop) {
@@ -94,9 +165,7 @@ export class FastBody<B> {
           this.scanner.escaped.fill(0);
           this.dirty = false;
         }
-        const next = this.kernel !== null
-          ? this.runKernel(this.kernel, buf, pos, quoteAt, stop, ascii, valid)
-          : this.runComma(buf, pos, quoteAt, stop, ascii, valid);
+        const next = this.runComma(buf, pos, quoteAt, stop, ascii, valid);
         dense = next > pos ? 0 : dense;
         pos = next;
         if (pos >= stop) break;
@@ -111,8 +180,6 @@ export class FastBody<B> {
         quoteAt = dense >= DENSE_QUOTES ? -1 : firstQuote(buf, pos, len);
       }
     }
-    if (pos > 0) this.endsWithBreak = buf[pos - 1] === LF || buf[pos - 1] === CR;
-    this.ctx.account.passMany(this.passed);
     return pos;
   }
 
@@ -241,16 +308,18 @@ export class FastBody<B> {
   }
 
   /**
-   * What runComma does, by the SIMD kernel: the quote-free text from `pos` is copied to the kernel a span
-   * at a time (with the byte after it, for CRLF), and the records it writes are handed to the sink.
+   * Records from `pos` by the SIMD kernel (its quote-free walk unless `quotes`), while they start before
+   * `stop` and end before `regionEnd`: the text is copied to the kernel a span at a time (with the byte after it, for CRLF and
+   * closing quotes; the first span `first` bytes, each next one twice the last, up to RECORD_SPAN), and
+   * the records it writes are handed to the sink.
+   * Returns where it stopped: at `stop`, at an unfinished record, or at one the kernel leaves.
    */
-  private runKernel(kernel: RecordKernel, buf: Buffer, pos: number, quoteAt: number, stop: number, ascii: boolean, valid: boolean): number {
+  private runKernel(kernel: RecordKernel, quotes: boolean, buf: Buffer, pos: number, regionEnd: number, stop: number, first: number, ascii: boolean, valid: boolean): number {
     const { scanner, sink, bytes, wanted, want, stride } = this;
     const { starts, ends } = scanner;
     const { input, output, state } = kernel;
     const nw = wanted.length;
     const len = buf.length;
-    const qa = quoteAt < len ? quoteAt : len;
     const until = stop < 0x7fffffff ? stop : 0x7fffffff;
     let line = this.line;
     let passed = 0;
@@ -260,12 +329,17 @@ export class FastBody<B> {
     state[2] = 0; // field number
     state[3] = -1; // LF to skip
     state[4] = 0; // wanted slot
+    state[6] = 0; // outside quotes
     let span = pos;
-    while (span < qa) {
-      const spanEnd = qa - span > RECORD_SPAN ? span + RECORD_SPAN : qa;
+    let size = first;
+    while (span < regionEnd) {
+      const spanEnd = regionEnd - span > size ? span + size : regionEnd;
+      size = size < RECORD_SPAN ? Math.min(RECORD_SPAN, 2 * size) : RECORD_SPAN;
       const ahead = spanEnd < len ? 1 : 0;
       input.set(buf.subarray(span, spanEnd + ahead));
-      const n = kernel.records(spanEnd - span, span, want, stride, until, ahead, this.delimiter);
+      const n = quotes
+        ? kernel.quotedRecords(spanEnd - span, span, want, stride, until, ahead, this.delimiter)
+        : kernel.records(spanEnd - span, span, want, stride, until, ahead, this.delimiter);
       if (bytes !== null && bytes.takesBlocks) {
         // Runs of accepted records go to the batch builder a block at a time.
         let from = 0;
@@ -319,9 +393,13 @@ export class FastBody<B> {
 
   /** A record the kernel found and the sink does not take: scanned again in full, for its diagnostics. */
   private kernelOther(buf: Buffer, record: number, line: number, valid: boolean): void {
-    // A quote-free record ending in a line break inside the buffer: scanPlain reads it whole.
-    this.scanner.scanPlain(buf, record, buf.length);
-    this.other(Scan.Record, buf, record, line, valid);
+    // The record ends in a line break inside the buffer, with no line break inside quotes: scanPlain
+    // reads it whole when it has no quote, scan otherwise (the record is whole, so it never needs more).
+    const { scanner } = this;
+    const plain = scanner.scanPlain(buf, record, buf.length);
+    this.other(plain ? Scan.Record : scanner.scan(buf, record, buf.length, false), buf, record, line, valid);
+    // The kernel's next records in this span are handed over with `escaped` as it is: keep it plain.
+    if (!plain) scanner.escaped.fill(0);
   }
 
   /** A quote-free record the loops do not pass on: its bounds are left in the scanner as `scan` would. */

@@ -1,7 +1,9 @@
-// The records of quote-free delimited text, found by the WebAssembly SIMD kernel of structurals.wat:
-// its delimiters and line breaks sixteen bytes per step, walked into record ends, field counts and the
-// bounds of the wanted fields. fast-body.ts hands it the quote-free stretches the JavaScript word loop
-// read before (that loop stays where no kernel runs, and for files whose wanted fields it cannot hold).
+// The records of delimited text, found by the WebAssembly SIMD kernel of structurals.wat: its delimiters,
+// quotes and line breaks sixteen bytes per step, walked into record ends, field counts and the bounds of
+// the wanted fields. One walk reads quote-free text; the other also reads quoted fields without quotes or
+// line breaks inside, and stops at a record with anything else, which fast-body.ts hands to the
+// JavaScript scanner. (The
+// JavaScript word loop stays where no kernel runs, and for files whose wanted fields it cannot hold.)
 import { STRUCTURALS_WASM } from './structurals-wasm.js';
 
 /** Bytes handed to the kernel per call. */
@@ -17,22 +19,26 @@ const OUTPUT = 65_728;
 export const enum KernelStop {
   /** At the end of its input. */
   Spent = 0,
-  /** At a CR that is the buffer's last byte. */
-  LoneCrAtEnd = 1,
+  /** At a CR, or a quote inside quotes, that is the buffer's last byte (what follows decides what it is). */
+  UndecidedAtEnd = 1,
   /** After the first record ending at or past `stop`. */
   Stop = 2,
+  /** At the start of a record with a quote or a quoted line break that the kernel leaves to the scanner. */
+  Quote = 3,
 }
 
 /** One thread's kernel (see structurals.wat for the layout of its memory). */
 export interface RecordKernel {
   /** The input area: RECORD_SPAN bytes, then the byte after them. */
   readonly input: Uint8Array;
-  /** STATE as i32: record start, field start, field number, LF to skip, wanted slot, status. */
+  /** STATE as i32: record start, field start, field number, LF to skip, wanted slot, status, quote state. */
   readonly state: Int32Array;
   /** OUTPUT as i32: per record `stride` values (end, fields, then start and end per wanted field). */
   readonly output: Int32Array;
-  /** Walks input[0, length) (byte i being `base` + i of the caller's buffer); returns records written. */
+  /** Walks quote-free input[0, length) (byte i being `base` + i of the caller's buffer); returns records written. */
   records(length: number, base: number, want: number, stride: number, stop: number, ahead: 0 | 1, delimiter: number): number;
+  /** The same walk over input that may hold quotes: reads simple quoted fields, stops at other quotes (KernelStop.Quote). */
+  quotedRecords(length: number, base: number, want: number, stride: number, stop: number, ahead: 0 | 1, delimiter: number): number;
 }
 
 let shared: RecordKernel | null | undefined;
@@ -57,11 +63,13 @@ export function recordKernel(): RecordKernel | null {
     const instance = new wasm.Instance(module, {});
     const memory = (instance.exports['memory'] as { buffer: ArrayBuffer }).buffer;
     const records = instance.exports['records'] as RecordKernel['records'];
+    const quotedRecords = instance.exports['quotedRecords'] as RecordKernel['quotedRecords'];
     shared = {
       input: new Uint8Array(memory, 0, RECORD_SPAN + 1),
       state: new Int32Array(memory, STATE, 8),
       output: new Int32Array(memory, OUTPUT, (memory.byteLength - OUTPUT) >> 2),
       records,
+      quotedRecords,
     };
   } catch {
     shared = null;

@@ -2,7 +2,7 @@
 // `npm run bench`: generates event files into a temporary folder (never committed), then times each
 // approach on them in one run and prints a table of wall time, MB/s, rows/s, peak memory and ratios.
 //
-//   node test/bench/run.mjs [--sizes 1000000,10000000] [--repeat 3] [--skip duckdb,naive] [--only rebin]
+//   node test/bench/run.mjs [--sizes 1000000,10000000] [--repeat 3] [--skip duckdb,naive,quoted] [--only rebin]
 //                           [--cli path/to/quern.js] [--keep]
 //
 // Needs the built CLI (`npm run build`). Peak memory is the child's maximum resident set size as
@@ -40,8 +40,8 @@ if (!existsSync(cli)) {
 const dir = mkdtempSync(join(tmpdir(), 'quern-bench-'));
 const hasTime = existsSync('/usr/bin/time');
 
-/** Seeded events `ts,site,age,amount`: ISO 8601 UTC timestamps over three years. */
-function generate(path, rows) {
+/** Seeded events `ts,site,age,amount`: ISO 8601 UTC timestamps over three years; every field in quotes with `quoted`. */
+function generate(path, rows, quoted = false) {
   let a = 12345;
   const rand = () => {
     a = (a + 0x6d2b79f5) >>> 0;
@@ -50,14 +50,15 @@ function generate(path, rows) {
     return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
   };
   const fd = openSync(path, 'w');
-  writeSync(fd, 'ts,site,age,amount\n');
+  writeSync(fd, quoted ? '"ts","site","age","amount"\n' : 'ts,site,age,amount\n');
   const start = Date.UTC(2021, 0, 1);
   const span = 3 * 365 * 86_400_000;
   let chunk = [];
   for (let i = 0; i < rows; i++) {
     const ms = start + Math.floor((i / rows) * span) + Math.floor(rand() * 60_000);
     const ts = new Date(ms).toISOString().slice(0, 19) + 'Z';
-    chunk.push(`${ts},site${Math.floor(rand() * 40)},${Math.floor(rand() * 95)},${(rand() * 500).toFixed(2)}`);
+    const cells = [ts, `site${Math.floor(rand() * 40)}`, Math.floor(rand() * 95), (rand() * 500).toFixed(2)];
+    chunk.push(quoted ? `"${cells.join('","')}"` : cells.join(','));
     if (chunk.length === 100_000) {
       writeSync(fd, chunk.join('\n') + '\n');
       chunk = [];
@@ -135,6 +136,17 @@ function approaches(file, rows) {
   return list.filter((a) => wanted.length === 0 || a.name.startsWith('newline') || wanted.some((w) => a.name.includes(w)));
 }
 
+/** The approaches run again on the same events with every field quoted (RFC 4180 §2.5), as some exports write them. */
+function quotedApproaches(file, rows) {
+  const q = (...a) => ['node', [cli, ...a]];
+  const list = [
+    { name: 'quern rebin --unit iso-week, every field quoted', run: q('rebin', file, '--time', 'ts', '--unit', 'iso-week', '--out', join(dir, `quern-quoted-${rows}.csv`), '-q') },
+    { name: 'quern bucket --edges --summary, every field quoted', run: q('bucket', file, '--value', 'age', '--edges', '0,5,15,25,45,65', '--open-high', '--summary') },
+  ];
+  const wanted = only.split(',').filter(Boolean);
+  return list.filter((a) => wanted.length === 0 || wanted.some((w) => a.name.includes(w)));
+}
+
 /** Period start (epoch ms) → count from a quern rebin CSV (period,start,end,count). */
 function quernCounts(path) {
   const lines = readFileSync(path, 'utf8').trim().split('\n').slice(1);
@@ -159,7 +171,14 @@ for (const rows of sizes) {
   generate(file, rows);
   const mb = statSync(file).size / 1e6;
   process.stderr.write(`${mb.toFixed(0)} MB\n`);
-  for (const a of approaches(file, rows)) {
+  const runs0 = approaches(file, rows);
+  let quotedFile = null;
+  if (!skip.has('quoted') && quotedApproaches(file, rows).length > 0) {
+    quotedFile = join(dir, `events-quoted-${rows}.csv`);
+    generate(quotedFile, rows, true);
+  }
+  const all = [...runs0.map((a) => ({ ...a, file, mb })), ...(quotedFile === null ? [] : quotedApproaches(quotedFile, rows).map((a) => ({ ...a, file: quotedFile, mb: statSync(quotedFile).size / 1e6 })))];
+  for (const a of all) {
     const runs = [];
     try {
       for (let i = 0; i < (a.once ? 1 : repeat); i++) runs.push(timed(...a.run));
@@ -170,13 +189,22 @@ for (const rows of sizes) {
     const wall = median(runs.map((r) => r.wall));
     const rss = Math.max(...runs.map((r) => r.rss));
     const cpu = median(runs.map((r) => r.cpu));
-    results.push({ rows, mb, name: a.name, pair: a.pair, ref: a.ref, wall, cpu, rss });
+    results.push({ rows, mb: a.mb, name: a.name, pair: a.pair, ref: a.ref, wall, cpu, rss });
     process.stderr.write(`  ${a.name}: ${wall.toFixed(2)} s\n`);
     if (a.ref !== undefined) {
       const q = approaches(file, rows).find((x) => x.pair === a.pair && x.out !== undefined);
       if (q !== undefined && existsSync(q.out)) checks.push(`${rows.toLocaleString('en-US')} rows, ${q.name}: ${check(a.name, q.out, runs[0].stdout)}`);
     }
   }
+  const weekOut = join(dir, `quern-week-${rows}.csv`);
+  const quotedOut = join(dir, `quern-quoted-${rows}.csv`);
+  if (existsSync(weekOut) && existsSync(quotedOut)) {
+    const a = quernCounts(weekOut);
+    const b = quernCounts(quotedOut);
+    const same = a.size === b.size && [...a].every(([k, v]) => b.get(k) === v);
+    checks.push(`${rows.toLocaleString('en-US')} rows, quern rebin --unit iso-week: ${same ? 'same' : 'DIFFERENT'} counts with every field quoted (${a.size} periods)`);
+  }
+  if (quotedFile !== null && !keep) rmSync(quotedFile, { force: true });
 }
 
 const pad = (s, n) => String(s).padEnd(n);

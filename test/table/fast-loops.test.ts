@@ -12,7 +12,9 @@ import { readAll, readAllBytes, tempDir, type ReadResult } from './helpers.js';
 const tmp = tempDir();
 afterAll(() => tmp.cleanup());
 
-type Quotes = 'none' | 'sparse' | 'dense' | 'all';
+// 'simple': every field quoted, mostly as the kernel's walk with quotes reads them (RFC 4180 §2.5–2.6: a
+// delimiter inside, empty), now and then with what it leaves to the scanner.
+type Quotes = 'none' | 'sparse' | 'dense' | 'all' | 'simple';
 
 /** A seeded body of about `size` bytes (a simple LCG, so every run builds the same file). */
 function body(delimiter: string, end: string, quotes: Quotes, seed: number, size = 150_000): Buffer {
@@ -24,9 +26,13 @@ function body(delimiter: string, end: string, quotes: Quotes, seed: number, size
   for (let i = 0; total < size; i++) {
     const r = rnd();
     let text: string;
-    const quoteThis = quotes === 'all' || (quotes === 'dense' && r < 0.9) || (quotes === 'sparse' && r < 0.02);
+    const quoteThis = quotes === 'all' || quotes === 'simple' || (quotes === 'dense' && r < 0.9) || (quotes === 'sparse' && r < 0.02);
     const q = (v: string): string => (quoteThis ? `"${v.replaceAll('"', '""')}"` : v);
-    const note = quoteThis ? (rnd() < 0.5 ? `say ""hi""${d} ok` : `two${end === '\r' ? '\n' : '\r\n'}lines`) : `n${i}`;
+    const breakInside = `two${end === '\r' ? '\n' : '\r\n'}lines`;
+    const pick = rnd();
+    const note = quotes === 'simple'
+      ? (pick < 0.02 ? `say ""hi""` : pick < 0.04 ? breakInside : pick < 0.1 ? '' : `n${i}${d} ok`)
+      : quoteThis ? (pick < 0.5 ? `say ""hi""${d} ok` : breakInside) : `n${i}`;
     const cells = [q(`2024-03-${String(1 + (i % 28)).padStart(2, '0')}T08:${String(i % 60).padStart(2, '0')}:00Z`), q(i % 3 === 0 ? 'Fennick Cross' : 'Alderbrook'), q(String(i % 100))];
     // Quoted notes hold a delimiter, doubled quotes or a line break (RFC 4180 §2.6–2.7).
     cells.push(quoteThis ? `"${note}"` : note);
@@ -34,6 +40,7 @@ function body(delimiter: string, end: string, quotes: Quotes, seed: number, size
     else if (r > 0.99) text = cells.slice(0, 3).join(d); // ragged: one field short
     else if (r > 0.985) text = `${cells.join(d)}${d}extra`; // ragged: one field more
     else if (r > 0.98) text = `bad"quote${d}${cells.slice(1).join(d)}`; // a quote inside an unquoted field
+    else if (r > 0.97 && quotes === 'simple') text = `"bad"after${d}${cells.slice(1).join(d)}`; // text after a closing quote
     else text = cells.join(d);
     let line = Buffer.from(text + end);
     if (r > 0.975 && r <= 0.98) line = Buffer.concat([Buffer.from([0xff]), line]); // not UTF-8
@@ -59,7 +66,7 @@ function comparable(r: ReadResult): unknown {
 }
 
 const CASES: [string, string, Quotes][] = [];
-for (const d of [',', '\t', ';', '|']) for (const e of ['\n', '\r\n', '\r']) for (const q of ['none', 'sparse', 'dense', 'all'] as Quotes[]) CASES.push([d, e, q]);
+for (const d of [',', '\t', ';', '|']) for (const e of ['\n', '\r\n', '\r']) for (const q of ['none', 'sparse', 'dense', 'all', 'simple'] as Quotes[]) CASES.push([d, e, q]);
 
 describe('fast path quote-free loops vs csv-parse on bodies spanning many chunks', () => {
   it.each(CASES)('delimiter %j, line end %j, quotes %s: the same rows, lines and rejections', async (d, e, q) => {
