@@ -1,8 +1,9 @@
-// The hot loop of the fast CSV path over one buffer. With the comma as delimiter, records that lie
-// before the buffer's next double quote (found with memchr-fast `indexOf`) are read by a tight loop that
-// skips field text a 32-bit word at a time; records holding a quote, a CR at the buffer's end, and every
-// record of other delimiters go through the general RFC 4180 scanner (csv-scan.ts). Both fill the same
-// field bounds and the same accounting.
+// The hot loop of the fast CSV path over one buffer. Where WebAssembly SIMD runs, the record kernel
+// (structurals.wat) reads quote-free text and simple quoted fields; records with doubled quotes or line
+// breaks inside quotes, malformed quotes and a CR or quote at the buffer's end go through the general
+// RFC 4180 scanner (csv-scan.ts). Without the kernel, comma records that lie before the buffer's next
+// double quote (found with memchr-fast `indexOf`) are read by a tight loop that skips field text a 32-bit
+// word at a time, and the scanner reads the rest. All fill the same field bounds and the same accounting.
 import { isAscii, isUtf8 } from 'node:buffer';
 import { CsvScanner, Scan } from './csv-scan.js';
 import type { BodyContext } from './body.js';
@@ -309,10 +310,10 @@ export class FastBody<B> {
 
   /**
    * Records from `pos` by the SIMD kernel (its quote-free walk unless `quotes`), while they start before
-   * `stop` and end before `regionEnd`: the text is copied to the kernel a span at a time (with the byte after it, for CRLF and
-   * closing quotes; the first span `first` bytes, each next one twice the last, up to RECORD_SPAN), and
-   * the records it writes are handed to the sink.
-   * Returns where it stopped: at `stop`, at an unfinished record, or at one the kernel leaves.
+   * `stop` and end before `regionEnd`: the text is copied to the kernel a span at a time (with the byte
+   * after it, for CRLF and closing quotes; the first span `first` bytes, each next one twice the last, up
+   * to RECORD_SPAN), and the records it writes are handed to the sink. Returns where it stopped: at
+   * `stop`, at an unfinished record, or at one the kernel leaves.
    */
   private runKernel(kernel: RecordKernel, quotes: boolean, buf: Buffer, pos: number, regionEnd: number, stop: number, first: number, ascii: boolean, valid: boolean): number {
     const { scanner, sink, bytes, wanted, want, stride } = this;
