@@ -1,10 +1,9 @@
 // Runs a range task over the byte ranges of a file on several threads, the main thread included, and
 // hands the outcomes back in file order with every boundary verified: a range that did not start where
 // the previous one stopped (a line feed inside a quoted field) is read again from that stop.
-import type { Worker } from 'node:worker_threads';
 import { QuernError, type ErrorCode } from '../errors.js';
 import type { FromWorker, ToWorker } from './messages.js';
-import { startRangeWorkers } from './workers.js';
+import { startRangeWorkers, type RangeThread } from './workers.js';
 import type { ByteRange, RangeOutcome, RangeRun, RangeTask } from './types.js';
 
 /** Runs `run.exportName` of `run.moduleUrl` over every range; rejects with the first error a range throws. */
@@ -39,8 +38,8 @@ export async function runRanges<O, P>(run: RangeRun<O>): Promise<Array<RangeOutc
   }
   // Threads started ahead are used first (the extra ones stopped); more are started if they are too few.
   const ahead = started?.threads ?? [];
-  const workers: Worker[] = ahead.slice(0, workerCount);
-  for (const extra of ahead.slice(workerCount)) void extra.terminate();
+  const workers: RangeThread[] = ahead.slice(0, workerCount);
+  for (const extra of ahead.slice(workerCount)) void extra.worker.terminate();
   const more = startRangeWorkers(run.moduleUrl, run.exportName, workerCount - workers.length);
   workers.push(...more.threads);
   const lanes: Array<Promise<void>> = [];
@@ -52,7 +51,7 @@ export async function runRanges<O, P>(run: RangeRun<O>): Promise<Array<RangeOutc
     const bad = settled.find((s): s is PromiseRejectedResult => s.status === 'rejected');
     if (bad !== undefined) throw bad.reason;
   } finally {
-    for (const w of workers) void w.terminate();
+    for (const w of workers) void w.worker.terminate();
   }
   // Mend boundaries in file order: each range must begin where the one before it stopped.
   for (let k = 1; k < n; k++) {
@@ -72,7 +71,7 @@ async function loadTask<O, P>(moduleUrl: string, exportName: string): Promise<Ra
 
 /** Feeds ranges to one worker until none are left; rejects on the worker's first error. */
 function workerLane(
-  worker: Worker,
+  thread: RangeThread,
   job: { file: string; options: unknown },
   take: () => ByteRange | undefined,
   done: (o: RangeOutcome<unknown>) => void,
@@ -83,16 +82,20 @@ function workerLane(
     const end = (e?: unknown): void => {
       if (finished) return;
       finished = true;
-      worker.postMessage({ type: 'stop' } satisfies ToWorker);
+      thread.worker.postMessage({ type: 'stop' } satisfies ToWorker);
       if (e === undefined) resolve();
       else reject(e);
     };
     const feed = (): void => {
       const r = take();
       if (r === undefined) end();
-      else worker.postMessage({ type: 'range', range: r, file: job.file, options: job.options } satisfies ToWorker);
+      else thread.worker.postMessage({ type: 'range', range: r, file: job.file, options: job.options } satisfies ToWorker);
     };
-    worker.on('message', (m: FromWorker) => {
+    // The thread's events from its start: one started ahead may have said it is ready long ago.
+    thread.listen((event) => {
+      if (event.kind === 'error') return end(event.error);
+      if (event.kind === 'exit') return end(finished ? undefined : new Error(`range worker stopped early (exit ${event.code})`));
+      const m: FromWorker = event.message;
       if (m.type === 'ready') feed();
       else if (m.type === 'progress') onBytes(m.index, m.bytes);
       else if (m.type === 'done') {
@@ -100,8 +103,6 @@ function workerLane(
         feed();
       } else end(rebuildError(m.error));
     });
-    worker.on('error', (e) => end(e));
-    worker.on('exit', (code) => end(finished ? undefined : new Error(`range worker stopped early (exit ${code})`)));
   });
 }
 

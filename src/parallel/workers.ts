@@ -5,13 +5,29 @@
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import type { WorkerSetup } from './messages.js';
+import type { FromWorker, WorkerSetup } from './messages.js';
 import { isSourceModule, siblingModule } from './module-url.js';
+
+/** What a range thread says or does: a message, an error, or its exit. */
+export type ThreadEvent =
+  | { kind: 'message'; message: FromWorker }
+  | { kind: 'error'; error: Error }
+  | { kind: 'exit'; code: number };
+
+/**
+ * A range worker thread whose events are held from its start until someone listens: a thread started ahead
+ * may say it is ready (or fail) before its lane is set up, and a Worker's events with no listener are lost.
+ */
+export interface RangeThread {
+  readonly worker: Worker;
+  /** Hands every event to `on`, first those held so far; one listener per thread. */
+  listen(on: (event: ThreadEvent) => void): void;
+}
 
 /** Worker threads started for one task, handed to `runRanges`, which stops them when it is done. */
 export interface RangeWorkers {
   readonly setup: WorkerSetup;
-  readonly threads: Worker[];
+  readonly threads: RangeThread[];
   /** Stops every thread (safe to call more than once, and after runRanges). */
   stop(): void;
 }
@@ -19,9 +35,32 @@ export interface RangeWorkers {
 /** Starts `count` worker threads for `exportName` of `moduleUrl` (none when count is 0 or less). */
 export function startRangeWorkers(moduleUrl: string, exportName: string, count: number): RangeWorkers {
   const setup: WorkerSetup = { moduleUrl, exportName };
-  const threads: Worker[] = [];
-  for (let w = 0; w < count; w++) threads.push(spawnWorker(setup));
-  return { setup, threads, stop: () => { for (const t of threads) void t.terminate(); } };
+  const threads: RangeThread[] = [];
+  for (let w = 0; w < count; w++) threads.push(holdEvents(spawnWorker(setup)));
+  return { setup, threads, stop: () => { for (const t of threads) void t.worker.terminate(); } };
+}
+
+/** Listens to a new worker at once, keeping its events until `listen` is called. */
+function holdEvents(worker: Worker): RangeThread {
+  let held: ThreadEvent[] | null = [];
+  let sink: ((event: ThreadEvent) => void) | null = null;
+  const deliver = (event: ThreadEvent): void => {
+    if (sink !== null) sink(event);
+    else held!.push(event);
+  };
+  worker.on('message', (message: FromWorker) => deliver({ kind: 'message', message }));
+  worker.on('error', (error: Error) => deliver({ kind: 'error', error }));
+  worker.on('exit', (code: number) => deliver({ kind: 'exit', code }));
+  return {
+    worker,
+    listen(on) {
+      if (sink !== null) throw new Error('a range thread has one listener');
+      sink = on;
+      const early = held!;
+      held = null;
+      for (const event of early) on(event);
+    },
+  };
 }
 
 /**

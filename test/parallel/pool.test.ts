@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { threadId } from 'node:worker_threads';
-import { lineBases, planRanges, runRanges, siblingModule, type ByteRange } from '../../src/parallel/index.js';
+import { lineBases, planRanges, runRanges, siblingModule, startRangeWorkers, type ByteRange } from '../../src/parallel/index.js';
 import { isQuernError } from '../../src/errors.js';
 import type { CountPartial } from './tasks.js';
 
@@ -43,6 +43,26 @@ describe('runRanges', () => {
       expect(b[ranges[k]!.start - 1]).toBe(10); // LF just before (the split rule)
     }
   });
+
+  it('runRanges uses threads started ahead that said they were ready before it listened', async () => {
+    const { path, records } = writeFile('ahead.csv', 1500);
+    const ranges = await cutEvery(path, 2048);
+    const workers = startRangeWorkers(tasks, 'countRecords', 2);
+    // Wait until both have posted 'ready' (a listener of the test's own): the pool's lanes come later.
+    await Promise.all(workers.threads.map((t) => new Promise<void>((resolve) => {
+      const on = (m: { type: string }): void => {
+        if (m.type === 'ready') {
+          t.worker.off('message', on);
+          resolve();
+        }
+      };
+      t.worker.on('message', on);
+    })));
+    const outcomes = await runRanges<unknown, CountPartial>({ moduleUrl: tasks, exportName: 'countRecords', file: path, options: {}, ranges, threads: 2, workers, mainTakesPart: false });
+    expect(outcomes.flatMap((o) => o.partial.records)).toEqual(records);
+    // Both threads read ranges (the main thread only mends splits inside quotes).
+    expect(new Set(outcomes.map((o) => o.partial.thread).filter((t) => t !== threadId)).size).toBe(2);
+  }, 20_000);
 
   it.each([1, 2, 3])('runRanges on %i thread(s) gives every record once, in order, mending splits inside quotes', async (threads) => {
     const { path, records } = writeFile(`t${threads}.csv`, 3000);
