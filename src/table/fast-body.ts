@@ -107,11 +107,7 @@ export class FastBody<B> {
     let span = RECORD_SPAN;
     while (pos < stop) {
       if (idle >= DENSE_QUOTES) return this.generalRun(buf, pos, stop, final, ascii, valid);
-      if (this.dirty) {
-        // The kernel leaves `escaped` alone: make it all plain again after the scanner's quoted records.
-        this.scanner.escaped.fill(0);
-        this.dirty = false;
-      }
+      this.plainEscapes();
       let next: number;
       if (quoted) {
         next = this.runKernel(kernel, true, buf, pos, len, stop, span, ascii, valid);
@@ -131,6 +127,13 @@ export class FastBody<B> {
       pos = end;
     }
     return pos;
+  }
+
+  /** The kernel and the word loop leave `escaped` alone: make it all plain again after the scanner's quoted records. */
+  private plainEscapes(): void {
+    if (!this.dirty) return;
+    this.scanner.escaped.fill(0);
+    this.dirty = false;
   }
 
   /** True when the scanner's last record is on one line and no field of it holds doubled quotes. */
@@ -161,11 +164,7 @@ export class FastBody<B> {
         break;
       }
       if (pos < quoteAt) {
-        if (this.dirty) {
-          // The quote-free loop leaves `escaped` alone: make it all plain again after quoted records.
-          this.scanner.escaped.fill(0);
-          this.dirty = false;
-        }
+        this.plainEscapes();
         const next = this.runComma(buf, pos, quoteAt, stop, ascii, valid);
         dense = next > pos ? 0 : dense;
         pos = next;

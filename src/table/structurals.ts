@@ -2,8 +2,8 @@
 // quotes and line breaks sixteen bytes per step, walked into record ends, field counts and the bounds of
 // the wanted fields. One walk reads quote-free text; the other also reads quoted fields without quotes or
 // line breaks inside, and stops at a record with anything else, which fast-body.ts hands to the
-// JavaScript scanner. (The
-// JavaScript word loop stays where no kernel runs, and for files whose wanted fields it cannot hold.)
+// JavaScript scanner. (The JavaScript word loop stays where no kernel runs, and for files whose wanted
+// fields it cannot hold.)
 import { STRUCTURALS_WASM } from './structurals-wasm.js';
 
 /** Bytes handed to the kernel per call. */
