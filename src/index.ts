@@ -21,7 +21,7 @@ export type { Zone, ZoneTransition } from './time/zone.js';
 // --- time ---
 export type { TimeKind, LocalTimeRule, ParsedTime } from './time/types.js';
 export { emptyParsedTime } from './time/types.js';
-export type { TimeFormatId, TimeFormat, EpochUnit, InferHints, InferResult, InferStatus, Candidate } from './time/index.js';
+export type { TimeFormatId, TimeFormat, EpochUnit, InferHints, InferResult, InferScope, InferStatus, Candidate } from './time/index.js';
 export type { TimeParser, TimeParserOptions, IsoDuration } from './time/index.js';
 export { TIME_FORMAT_IDS, isTimeFormatId, timeFormat, inferTimeFormat, makeTimeParser } from './time/index.js';
 export { parseIsoDuration, addDurationToWall, parseTimeText, epochUnitOfDigits, serialFractionMs } from './time/index.js';

@@ -64,7 +64,7 @@ function formatOf(id: string): TimeFormat {
 
 // The format the first values are written in; never a guess (ambiguous day/month orders stop here).
 function inferFormat(sample: readonly string[], hints: InferHints): TimeFormat {
-  const r = inferTimeFormat(sample, hints);
+  const r = inferTimeFormat(sample, hints, { stopAtFull: true });
   if (r.status === 'ok' && r.format !== null) return r.format;
   if (r.status === 'none' && r.total === 0) return timeFormat('iso-date-time-offset'); // no values at all
   const first = sample.find((v) => !isBlank(v)) ?? '';

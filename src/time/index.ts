@@ -4,7 +4,7 @@ export { emptyParsedTime } from './types.js';
 export type { TimeFormatId, TimeFormat, EpochUnit } from './format.js';
 export { TIME_FORMAT_IDS, isTimeFormatId, timeFormat } from './format.js';
 export type { InferHints, InferResult, InferStatus, Candidate } from './infer-types.js';
-export { inferTimeFormat } from './infer.js';
+export { inferTimeFormat, type InferScope } from './infer.js';
 export type { TimeParser, TimeParserOptions } from './parser.js';
 export { makeTimeParser } from './parser.js';
 export type { IsoDuration } from './duration.js';

