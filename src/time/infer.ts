@@ -150,7 +150,8 @@ export function inferTimeFormat(sample: readonly string[], hints: InferHints = {
   }
   const chosen = top.chosen;
   const parser = parserFor(chosen.format, hints);
-  const rejected = rejectedOf(values, parser);
+  // A format that reads every value rejects none: the pass is skipped.
+  const rejected = chosen.matched === values.length ? [] : rejectedOf(values, parser);
   const evidence = [...top.evidence];
   if (chosen.matched < values.length) evidence.push(`${values.length - chosen.matched} of ${values.length} values do not fit it`);
   const rival = others.find((c) => c.matched >= Math.max(1, MIXED_SHARE * values.length) && chosen.matched + c.matched > values.length * (1 - MIXED_SHARE) && chosen.matched < values.length);

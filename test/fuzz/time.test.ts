@@ -133,4 +133,19 @@ describe('inferTimeFormat with stopAtFull', () => {
       expect(run(true), JSON.stringify(values)).toEqual(run(false));
     }), { numRuns: fuzzRuns(400) });
   });
+
+  it('counts as matched exactly the values the parser of the chosen format reads (so a full match rejects none)', () => {
+    const column = fc.tuple(fc.constantFrom(...writers.keys()), fc.array(fc.oneof(recent.map((ms) => ({ ms })), fc.oneof(textish, mutatedIso)), { minLength: 1, maxLength: 12 }))
+      .map(([w, items]) => items.map((x) => (typeof x === 'string' ? x : writers[w]!(new Date(x.ms)))));
+    const out = emptyParsedTime();
+    fc.assert(fc.property(column, (values) => {
+      count('matched against the parser');
+      const r = inferTimeFormat(values, { twoDigitYearPivot: 1950 });
+      if (r.status !== 'ok' || r.format === null) return;
+      const parse = makeTimeParser(r.format, { twoDigitYearPivot: 1950 });
+      const read = values.filter((v) => v.trim() !== '' && parse(v, out) === null).length;
+      expect(read, JSON.stringify(values)).toBe(r.matched);
+      expect(r.rejected.length, JSON.stringify(values)).toBe(Math.min(5, r.total - r.matched));
+    }), { numRuns: fuzzRuns(400) });
+  });
 });
