@@ -16,11 +16,13 @@ process.stdout.on('error', (e: NodeJS.ErrnoException) => {
   throw e;
 });
 
-const status = await run(process.argv.slice(2), {
+// No top-level await: the binary runs this file from a CommonJS bundle (cli/bundle.mjs).
+void run(process.argv.slice(2), {
   stdout: process.stdout,
   stderr: process.stderr,
   stdin: process.stdin,
   env: process.env,
   cwd: process.cwd(),
+}).then((status) => {
+  process.exitCode = status;
 });
-process.exitCode = status;

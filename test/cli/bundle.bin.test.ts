@@ -2,11 +2,12 @@
 // (dist/workers): a run on two threads must give what one thread gives. The file is over 32 MB, the size
 // from which the CLI reads a file in byte ranges (cli/threads.ts).
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import { cachePathOf, compileBundle } from '../../cli/code-cache.js';
 import { timeFormat } from '../../src/time/format.js';
 import { afterAll, describe, expect, it } from 'vitest';
 
@@ -68,5 +69,32 @@ describe('dist/quern.js on two threads', () => {
     } finally {
       await worker.terminate();
     }
+  });
+});
+
+describe('the code caches of the bundles (cli/bundle.mjs, cli/code-cache.ts)', () => {
+  const bundles = ['../../dist/quern.cjs', '../../dist/workers/range-worker.cjs', '../../dist/workers/column-worker.cjs'].map((u) => fileURLToPath(new URL(u, import.meta.url)));
+  it.skipIf(!existsSync(main))('are accepted by the V8 that made them, for every bundle', () => {
+    for (const file of bundles) {
+      const cache = readFileSync(cachePathOf(file));
+      expect(cache.length, file).toBeGreaterThan(10_000);
+      expect(compileBundle(file, cache).rejected, file).toBe(false);
+    }
+  });
+
+  it.skipIf(!existsSync(main))('are refused when the bundle changed, and the bundle then compiles as usual', () => {
+    // V8 checks the source against the cache (a changed length is refused).
+    const file = join(dir, 'changed.cjs');
+    writeFileSync(file, readFileSync(bundles[1]!, 'utf8') + '\n;');
+    const { script, rejected } = compileBundle(file, readFileSync(cachePathOf(bundles[1]!)));
+    expect(rejected).toBe(true);
+    expect(typeof script.runInThisContext()).toBe('function');
+  });
+
+  it.skipIf(!existsSync(main))('keep the non-ASCII text of regular expressions: age bands written with en dashes are range labels', () => {
+    const file = join(dir, 'ages.csv');
+    writeFileSync(file, 'age_band,n\n0–4,3\n5–14,7\n15–64,12\n65+,4\n');
+    const profile = JSON.parse(quern(['profile', file, '--json']));
+    expect(profile.columns[0].role).toBe('range-label');
   });
 });

@@ -1,0 +1,23 @@
+// The start of the binary (dist/quern.js) and of its worker threads (dist/workers/*.js): runs the bundle
+// with this file's name and the extension .cjs, through the code cache beside it (see code-cache.ts).
+import { readFileSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { dirname } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { cachePathOf, compileBundle } from './code-cache.js';
+
+const file = fileURLToPath(import.meta.url).replace(/\.js$/, '.cjs');
+let cached: Buffer | undefined;
+try {
+  cached = readFileSync(cachePathOf(file));
+} catch {
+  cached = undefined; // no cache (a build that made none): the bundle is compiled as usual
+}
+const { script } = compileBundle(file, cached);
+// The build's training run (cli/bundle.mjs): the cache written at exit holds every function this run
+// compiled, not only the bundle's top level, and makes later starts about 25 ms faster still.
+const trainOut = process.env['QUERN_CODE_CACHE_OUT'];
+if (trainOut !== undefined && trainOut !== '') process.once('exit', () => writeFileSync(trainOut, script.createCachedData()));
+const wrapped = script.runInThisContext() as (exports: object, require: NodeJS.Require, module: object, filename: string, dir: string) => void;
+const module = { exports: {} };
+wrapped.call(module.exports, module.exports, createRequire(file), module, file, dirname(file));
