@@ -29,11 +29,35 @@ function parserFor(format: TimeFormat, hints: InferHints): TimeParser | null {
   }
 }
 
-function countWith(values: readonly string[], parser: TimeParser | null): number {
+/** The distinct values of a sample, each with the number of times it occurs. */
+interface Tally {
+  values: string[];
+  weights: number[];
+}
+
+/** Tallies the sample: a parser then reads each distinct value once (a clinic column: a few dozen instead of 2,000). */
+function tallyOf(values: readonly string[]): Tally {
+  const at = new Map<string, number>();
+  const tally: Tally = { values: [], weights: [] };
+  for (const v of values) {
+    const k = at.get(v);
+    if (k !== undefined) tally.weights[k]!++;
+    else {
+      at.set(v, tally.values.length);
+      tally.values.push(v);
+      tally.weights.push(1);
+    }
+  }
+  return tally;
+}
+
+/** How many sample values `parser` reads (a parser's answer depends on the value only). */
+function countWith(tally: Tally, parser: TimeParser | null): number {
   if (parser === null) return 0;
   const out = emptyParsedTime();
+  const { values, weights } = tally;
   let n = 0;
-  for (const v of values) if (parser(v, out) === null) n++;
+  for (let i = 0; i < values.length; i++) if (parser(values[i]!, out) === null) n += weights[i]!;
   return n;
 }
 
@@ -45,7 +69,7 @@ function quarterPattern(values: readonly string[]): string {
   return v.charAt(4) === ' ' ? "yyyy 'Q'Q" : "yyyy'Q'Q";
 }
 
-function tradeFamilies(values: readonly string[], hints: InferHints): FamilyResult[] {
+function tradeFamilies(values: readonly string[], tally: Tally, hints: InferHints): FamilyResult[] {
   const found: FamilyResult[] = [];
   for (const id of TRADE_IDS) {
     const extra: Partial<TimeFormat> = {};
@@ -54,7 +78,7 @@ function tradeFamilies(values: readonly string[], hints: InferHints): FamilyResu
     if (id === 'fiscal-year' && hints.fiscalLabel !== undefined) extra.fiscalLabel = hints.fiscalLabel;
     if (id === 'quarter') extra.pattern = quarterPattern(values);
     const format = timeFormat(id, extra);
-    const matched = countWith(values, parserFor(format, hints));
+    const matched = countWith(tally, parserFor(format, hints));
     if (matched === 0) continue;
     const chosen: Candidate = { format, matched, evidence: `${matched} of ${values.length} values are ${TRADE_WORDS[id] ?? id}: ${format.label}` };
     found.push({ status: 'ok', chosen, candidates: [], reason: null, evidence: [chosen.evidence] });
@@ -90,7 +114,8 @@ function readsAll(f: FamilyResult | null, n: number): boolean {
  * the best is the same; only the later families' candidates are missing.
  */
 function families(values: readonly string[], hints: InferHints, stopAtFull: boolean): FamilyResult[] {
-  const count = (f: TimeFormat) => countWith(values, parserFor(f, hints));
+  const tally = tallyOf(values);
+  const count = (f: TimeFormat) => countWith(tally, parserFor(f, hints));
   const parserOf = (f: TimeFormat) => parserFor(f, hints) ?? (() => 'not-recognised');
   const fams: FamilyResult[] = [];
   const sorted = (): FamilyResult[] => fams.sort((a, b) => weight(b) - weight(a));
@@ -103,7 +128,7 @@ function families(values: readonly string[], hints: InferHints, stopAtFull: bool
   const iso = inferIso(values, hints.columnName);
   if (add(iso === null ? null : { status: 'ok', chosen: iso, candidates: [], reason: null, evidence: [iso.evidence] })) return sorted();
   if (add(inferNumeric(values, hints, count))) return sorted();
-  fams.push(...tradeFamilies(values, hints));
+  fams.push(...tradeFamilies(values, tally, hints));
   return sorted();
 }
 
