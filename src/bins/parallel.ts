@@ -2,7 +2,7 @@
 // each range is counted with the number format and bucket set decided from the file's first rows, and the
 // tallies are added in file order, examples shifted to file lines. Counting merges exactly; only fixed
 // plans (edges, schemes, specs) on plain CSV/TSV files read by the fast engine go parallel.
-import { lineBases, mergeSummaries, planRanges, runRanges, siblingModule } from '../parallel/index.js';
+import { defaultBytesPerRange, lineBases, mergeSummaries, planRanges, runRanges, siblingModule } from '../parallel/index.js';
 import { openTable, type TableOptions } from '../table/index.js';
 import { buildBuckets, planNeedsData } from './build.js';
 import { firstSample, readingFor, sampleIntegers } from './byte-pass.js';
@@ -14,7 +14,7 @@ import { BucketTally, type TallyPartial } from './tally.js';
 export interface BucketThreads {
   /** Threads in all, the main thread included; 1 reads on one thread. */
   threads: number;
-  /** Bytes per range; default about eight ranges a thread, at least 8 MiB each. */
+  /** Bytes per range; default about two ranges a thread (RANGES_PER_THREAD in src/parallel/plan.ts), at least 8 MiB each. */
   bytesPerRange?: number;
   /** Smallest file read on several threads; default 32 MiB. */
   minBytes?: number;
@@ -41,7 +41,7 @@ export async function bucketFile(file: string, options: BucketRunOptions, table:
     reader.close();
   }
   const size = reader.totalBytes!;
-  const per = threads.bytesPerRange ?? Math.max(8 << 20, Math.ceil(size / (threads.threads * 8)));
+  const per = threads.bytesPerRange ?? defaultBytesPerRange(size, threads.threads);
   const ranges = await planRanges(file, size, per, { ...(table.cwd !== undefined ? { cwd: table.cwd } : {}), bodyStart: reader.bodyStart });
   if (ranges.length < 2 || sample.length === 0) return bucketTable(open, options);
   const reading = readingFor(sample, options.numberFormat);

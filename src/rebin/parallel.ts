@@ -3,7 +3,7 @@
 // partials are merged in file order. Only what merges exactly goes parallel; everything else — standard
 // input, gzip, NDJSON, the reference engine, small files, apportioned source periods — is read on one
 // thread, and so is the whole file again when a range met an error, so that the error names its true line.
-import { lineBases, mergeSummaries, planRanges, runRanges, siblingModule, startRangeWorkers } from '../parallel/index.js';
+import { defaultBytesPerRange, lineBases, mergeSummaries, planRanges, runRanges, siblingModule, startRangeWorkers } from '../parallel/index.js';
 import type { RangeOutcome, RangeWorkers } from '../parallel/index.js';
 import { openTable } from '../table/index.js';
 import type { TableOptions, TableReader } from '../table/types.js';
@@ -19,7 +19,7 @@ import type { RebinOptions, RebinResult } from './types.js';
 export interface RebinThreads {
   /** Threads in all, the main thread included; 1 reads on one thread. */
   threads: number;
-  /** Bytes per range; default about eight ranges a thread, at least 8 MiB each. */
+  /** Bytes per range; default about two ranges a thread (RANGES_PER_THREAD in src/parallel/plan.ts), at least 8 MiB each. */
   bytesPerRange?: number;
   /** Smallest file read on several threads; default 32 MiB (smaller files are done before threads start). */
   minBytes?: number;
@@ -76,7 +76,7 @@ export async function rebinFile(file: string, options: RebinOptions, table: Tabl
       reader.close();
     }
     const size = reader.totalBytes!;
-    const per = threads.bytesPerRange ?? Math.max(8 << 20, Math.ceil(size / (threads.threads * 8)));
+    const per = threads.bytesPerRange ?? defaultBytesPerRange(size, threads.threads);
     const ranges = await planRanges(file, size, per, { ...(table.cwd !== undefined ? { cwd: table.cwd } : {}), bodyStart: reader.bodyStart });
     if (ranges.length < 2) {
       workers.stop();
