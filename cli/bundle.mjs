@@ -8,7 +8,7 @@
 //
 // Each bundle is CommonJS (<name>.cjs), minified, with the code cache V8 makes when compiling it
 // (<name>.cache); <name>.js is the launcher (cli/launch.ts) that runs it through that cache, so that no
-// start parses the bundle again: a one-row rebin 0.20 -> 0.15 s (see cli/code-cache.ts).
+// start parses the bundle again: a one-row rebin 0.21 -> 0.175 s (see cli/code-cache.ts).
 import { build } from 'esbuild';
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, renameSync, rmSync, writeFileSync } from 'node:fs';
@@ -69,9 +69,9 @@ async function bundle(entry, launcher, shebang = false) {
 }
 
 /**
- * Runs the binary once on a small table, a rebin by ISO week with a group, a count and a sum, and keeps the code
- * cache it writes at exit (cli/launch.ts): one that holds the functions a run compiles, not only the
- * bundle's top level. Left as it was when the run fails.
+ * Runs the binary once on a small table, a rebin by ISO week with a group, a count and a sum, and keeps
+ * the code cache it writes at exit (cli/launch.ts): one that holds the functions a run compiles, not only
+ * the bundle's top level. Left as it was when the run fails.
  */
 async function trainBinary(launcher) {
   const dir = mkdtempSync(join(tmpdir(), 'quern-build-'));

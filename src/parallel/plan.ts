@@ -6,6 +6,7 @@ import { fileError } from '../table/source.js';
 import type { ByteRange } from './types.js';
 
 const LF = 0x0a;
+const WINDOW = 64 * 1024;
 
 /**
  * Ranges a thread takes by default. Each range costs its thread a start (header, buffers, warming the
@@ -19,7 +20,6 @@ export const RANGES_PER_THREAD = 2;
 export function defaultBytesPerRange(size: number, threads: number): number {
   return Math.max(8 << 20, Math.ceil(size / (threads * RANGES_PER_THREAD)));
 }
-const WINDOW = 64 * 1024;
 
 /**
  * Ranges of about `bytesPerRange` bytes covering a plain file of `size` bytes; every boundary is just after

@@ -136,7 +136,7 @@ export async function openTable(file: string, options: TableOptions = {}): Promi
   // A range starting after the header reads the header with progress silent, in small reads (SNIFF_BYTES,
   // doubled while no header is found): its records' source reports, and reads the range in full-size
   // chunks. Reading the header in 1 MiB chunks, each copied, cost a range about 4 ms on a machine whose
-  // fresh pages are slow, a tenth of a 10M-row rebin on two threads (16 ranges).
+  // fresh pages are slow (0.07 s of a 10M-row rebin on two threads when it read 16 ranges).
   const headerOnly = range !== undefined && range.start > 0;
   let source = await openSource(file, range === undefined ? options
     : { ...options, ...(headerOnly ? { chunkSize: SNIFF_BYTES } : {}), onProgress: range.start === 0 ? rangeProgress(options, range) : undefined });

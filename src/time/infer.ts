@@ -35,7 +35,7 @@ interface Tally {
   weights: number[];
 }
 
-/** Tallies the sample: a parser then reads each distinct value once (a clinic column: a few dozen instead of 2,000). */
+/** Tallies the sample, so that a parser reads each distinct value once (a clinic column: dozens, not 2,000). */
 function tallyOf(values: readonly string[]): Tally {
   const at = new Map<string, number>();
   const tally: Tally = { values: [], weights: [] };
@@ -137,7 +137,7 @@ export interface InferScope {
   /**
    * Stop at the first family of formats that reads every value (default false). The format and status are
    * those of the whole search; `candidates` and `evidence` lack the families not tried. rebin, which needs
-   * only the format, saves about 40 ms on 2,000 ISO 8601 values.
+   * only the format, skips the numeric and trade families on 2,000 ISO 8601 values (10M rows: 0.88 -> 0.80 s).
    */
   stopAtFull?: boolean;
 }
