@@ -16,7 +16,7 @@ import { tmpdir } from 'node:os';
 import { readFile } from 'node:fs/promises';
 import { dirname, join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { cachePathOf, compileBundle } from '../dist/cli/code-cache.js';
+import { bundlePathOf, cachePathOf, compileBundle } from '../dist/cli/code-cache.js';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -37,7 +37,7 @@ const moduleUrls = (outfile) => ({
 
 /** Bundles `entry` into `<name>.cjs` with its code cache, and writes the launcher `<name>.js`. */
 async function bundle(entry, launcher, shebang = false) {
-  const outfile = launcher.replace(/\.js$/, '.cjs');
+  const outfile = bundlePathOf(launcher);
   await build({
     entryPoints: [entry],
     outfile,
@@ -84,7 +84,7 @@ async function trainBinary(launcher) {
     const run = spawnSync(process.execPath, [launcher, 'rebin', table, '--time', 'ts', '--unit', 'iso-week', '--by', 'site', '--agg', 'count', '--agg', 'sum:amount'], {
       env: { ...process.env, QUERN_CODE_CACHE_OUT: out, NO_COLOR: '1' }, encoding: 'utf8',
     });
-    if (run.status === 0 && existsSync(out)) renameSync(out, cachePathOf(launcher.replace(/\.js$/, '.cjs')));
+    if (run.status === 0 && existsSync(out)) renameSync(out, cachePathOf(bundlePathOf(launcher)));
     else console.warn(`bundle: the training run failed (status ${run.status}); the code cache holds the top level only\n${run.stderr}`);
   } finally {
     rmSync(dir, { recursive: true, force: true });

@@ -11,6 +11,11 @@ import vm from 'node:vm';
 const HEAD = '(function (exports, require, module, __filename, __dirname) { ';
 const TAIL = '\n})';
 
+/** The bundle a launcher runs: the launcher's path with .cjs for .js. */
+export function bundlePathOf(launcher: string): string {
+  return launcher.replace(/\.js$/, '.cjs');
+}
+
 /** The path of the cache beside the bundle `file` (a .cjs file). */
 export function cachePathOf(file: string): string {
   return file.replace(/\.cjs$/, '.cache');

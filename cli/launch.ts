@@ -4,9 +4,9 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { cachePathOf, compileBundle } from './code-cache.js';
+import { bundlePathOf, cachePathOf, compileBundle } from './code-cache.js';
 
-const file = fileURLToPath(import.meta.url).replace(/\.js$/, '.cjs');
+const file = bundlePathOf(fileURLToPath(import.meta.url));
 let cached: Buffer | undefined;
 try {
   cached = readFileSync(cachePathOf(file));
