@@ -17,6 +17,9 @@ import { readFile } from 'node:fs/promises';
 import { dirname, join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { bundlePathOf, cachePathOf, compileBundle } from '../dist/cli/code-cache.js';
+import { encodeZoneAtlas, readZoneAtlas } from '../dist/src/grain/zone-atlas.js';
+import { intlOffsetMs } from '../dist/src/grain/zone-probe.js';
+import { candidateZoneNames } from '../dist/src/grain/zone-names.js';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -97,3 +100,19 @@ await trainBinary(join(root, 'dist', 'quern.js'));
 // are there. A worker of the compiled modules took 0.15-0.16 s to load, a bundled one 0.09 s.
 await bundle(join(root, 'dist', 'cli', 'range-worker.js'), join(root, 'dist', 'workers', 'range-worker.js'));
 await bundle(join(root, 'dist', 'src', 'profile', 'column-worker.js'), join(root, 'dist', 'workers', 'column-worker.js'));
+
+/** Years the zone atlas covers; the probe asks Intl itself about instants outside them. */
+const ATLAS_FROM = Date.UTC(1970, 0, 1);
+const ATLAS_TO = Date.UTC(2040, 0, 1);
+
+/**
+ * Reads every candidate zone's offsets over ATLAS_FROM..ATLAS_TO into dist/zone-atlas.bin (about 2 s),
+ * which grain and profile read instead of building an Intl formatter per zone in each run (see
+ * src/grain/zone-probe.ts). Without it they ask Intl, with the same results.
+ */
+function writeZoneAtlas() {
+  const atlas = readZoneAtlas(candidateZoneNames(), ATLAS_FROM, ATLAS_TO, intlOffsetMs);
+  writeFileSync(join(root, 'dist', 'zone-atlas.bin'), encodeZoneAtlas(atlas));
+}
+
+writeZoneAtlas();

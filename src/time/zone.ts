@@ -22,7 +22,7 @@ const DAY = 86_400_000;
  * days (the survey of minimum spacings in the Temporal polyfill, which samples at 6–19 days), so 4-day
  * samples see every change; each change is then located to the second by bisection.
  */
-const SAMPLE_MS = 4 * DAY;
+export const SAMPLE_MS = 4 * DAY;
 /** The range of ECMAScript time values (±8.64e15 ms); outside it offsets are NaN. */
 const MAX_MS = 8.64e15;
 /** Span of one cached block of the transition table (2^35 ms, about 398 days). */
