@@ -6,9 +6,9 @@
 // `import.meta.url` in a bundle is rewritten to the URL of the file it came from, so the URLs built from it
 // (worker files, range task modules) name the same files as before.
 //
-// Each bundle is CommonJS (<name>.cjs), minified, with the code cache V8 makes when compiling it
-// (<name>.cache); <name>.js is the launcher (cli/launch.ts) that runs it through that cache, so that no
-// start parses the bundle again: a one-row rebin 0.21 -> 0.175 s (see cli/code-cache.ts).
+// Each bundle is CommonJS (<name>.bundle.cjs), minified, with the code cache V8 makes when compiling it
+// (<name>.bundle.cache); <name>.cjs is the launcher (cli/launch.ts) that runs it through that cache, so
+// that no start parses the bundle again: a one-row rebin 0.21 -> 0.175 s (see cli/code-cache.ts).
 import { build } from 'esbuild';
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, renameSync, rmSync, writeFileSync } from 'node:fs';
@@ -38,7 +38,7 @@ const moduleUrls = (outfile) => ({
   },
 });
 
-/** Bundles `entry` into `<name>.cjs` with its code cache, and writes the launcher `<name>.js`. */
+/** Bundles `entry` into `<name>.bundle.cjs` with its code cache, and writes the launcher `<name>.cjs`. */
 async function bundle(entry, launcher, shebang = false) {
   const outfile = bundlePathOf(launcher);
   await build({
@@ -64,10 +64,11 @@ async function bundle(entry, launcher, shebang = false) {
     outfile: launcher,
     bundle: true,
     platform: 'node',
-    format: 'esm',
+    format: 'cjs',
     target: 'node20',
     logLevel: 'warning',
-    ...(shebang ? { banner: { js: '#!/usr/bin/env node' } } : {}),
+    define: { 'import.meta.url': '__quernUrl' },
+    banner: { js: `${shebang ? '#!/usr/bin/env node\n' : ''}"use strict";var __quernUrl=require("node:url").pathToFileURL(__filename).href;` },
   });
 }
 
@@ -94,12 +95,12 @@ async function trainBinary(launcher) {
   }
 }
 
-await bundle(join(root, 'dist', 'cli', 'main.js'), join(root, 'dist', 'quern.js'), true);
-await trainBinary(join(root, 'dist', 'quern.js'));
+await bundle(join(root, 'dist', 'cli', 'main.js'), join(root, 'dist', 'quern.cjs'), true);
+await trainBinary(join(root, 'dist', 'quern.cjs'));
 // The worker threads, one file each: src/parallel/workers.ts and src/profile/split.ts start these when they
 // are there. A worker of the compiled modules took 0.15-0.16 s to load, a bundled one 0.09 s.
-await bundle(join(root, 'dist', 'cli', 'range-worker.js'), join(root, 'dist', 'workers', 'range-worker.js'));
-await bundle(join(root, 'dist', 'src', 'profile', 'column-worker.js'), join(root, 'dist', 'workers', 'column-worker.js'));
+await bundle(join(root, 'dist', 'cli', 'range-worker.js'), join(root, 'dist', 'workers', 'range-worker.cjs'));
+await bundle(join(root, 'dist', 'src', 'profile', 'column-worker.js'), join(root, 'dist', 'workers', 'column-worker.cjs'));
 
 /** Years the zone atlas covers; the probe asks Intl itself about instants outside them. */
 const ATLAS_FROM = Date.UTC(1970, 0, 1);

@@ -1,6 +1,7 @@
 // How a bundle of the binary is run through V8's code cache: cli/bundle.mjs writes each bundle as a
-// CommonJS file (<name>.cjs) and, beside it, the cache V8 made when compiling it (<name>.cache); the
-// launcher (cli/launch.ts) compiles the same wrapped text with that cache. V8 then skips parsing the
+// CommonJS file (<name>.bundle.cjs) and, beside it, the cache V8 made when compiling it
+// (<name>.bundle.cache); the launcher <name>.cjs (cli/launch.ts) compiles the same wrapped text with that
+// cache. V8 then skips parsing the
 // bundle at every start: a one-row rebin took 0.21 s, 0.175 s with the cache (30 runs each, interleaved).
 // V8 rejects a cache made by another Node version or under other V8 flags, and the bundle is then compiled
 // as usual.
@@ -11,9 +12,9 @@ import vm from 'node:vm';
 const HEAD = '(function (exports, require, module, __filename, __dirname) { ';
 const TAIL = '\n})';
 
-/** The bundle a launcher runs: the launcher's path with .cjs for .js. */
+/** The bundle a launcher runs: the launcher's path with .bundle.cjs for .cjs. */
 export function bundlePathOf(launcher: string): string {
-  return launcher.replace(/\.js$/, '.cjs');
+  return launcher.replace(/\.cjs$/, '.bundle.cjs');
 }
 
 /** The path of the cache beside the bundle `file` (a .cjs file). */

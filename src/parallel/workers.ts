@@ -64,12 +64,12 @@ function holdEvents(worker: Worker): RangeThread {
 }
 
 /**
- * The bundled worker next to the compiled modules (dist/workers/<name>.js), when the build made one; null
- * otherwise (the TypeScript sources, or a build without bundles).
+ * The bundled worker's launcher next to the compiled modules (dist/workers/<name>.cjs), when the build made
+ * one; null otherwise (the TypeScript sources, or a build without bundles).
  */
 export function bundledWorker(importMetaUrl: string, name: string): URL | null {
   if (isSourceModule(importMetaUrl)) return null;
-  const url = new URL(`../../workers/${name}.js`, importMetaUrl);
+  const url = new URL(`../../workers/${name}.cjs`, importMetaUrl);
   return existsSync(fileURLToPath(url)) ? url : null;
 }
 

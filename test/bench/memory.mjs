@@ -5,7 +5,7 @@
 // committed) and deleted at the end. `period` and `sql` read no data file, so they are not measured.
 //
 //   npx tsc -p . && node test/bench/memory.mjs [--rows 10000000] [--only rebin,overlaps] [--threads 1]
-//     [--cli path/to/quern.js] [--keep]
+//     [--cli path/to/quern.cjs] [--keep]
 //
 // One command runs at a time. On a shared machine run it under `nice`, and read the wall column with the
 // load average printed above the table.
@@ -24,7 +24,7 @@ const opt = (name, dflt) => {
 const rows = Number(opt('rows', '10000000'));
 const threads = opt('threads', '1');
 const only = opt('only', '') ? new Set(opt('only', '').split(',')) : null;
-const cli = opt('cli', join(root, 'dist', 'quern.js'));
+const cli = opt('cli', join(root, 'dist', 'quern.cjs'));
 if (!Number.isSafeInteger(rows) || rows < 1) {
   console.error('memory bench: --rows needs a whole number');
   process.exit(2);

@@ -4,7 +4,7 @@
 // Prints wall time, user CPU and peak resident memory of the built CLI, as /usr/bin/time reports them.
 //
 //   npx tsc -p . && node test/bench/overlaps.mjs [--rows 1000000] [--repeat 1] [--only random,identical] [--keep]
-//     [--cli path/to/quern.js] [--text]   (--text times the human output instead of --json)
+//     [--cli path/to/quern.cjs] [--text]   (--text times the human output instead of --json)
 import { spawnSync } from 'node:child_process';
 import { closeSync, existsSync, mkdtempSync, openSync, rmSync, writeSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
@@ -21,7 +21,7 @@ const rows = Number(opt('rows', '1000000'));
 const repeat = Number(opt('repeat', '1'));
 const extra = opt('args', '') ? opt('args', '').split(' ') : ['--json'];
 const only = opt('only', '') ? new Set(opt('only', '').split(',')) : null;
-const cli = opt('cli', join(root, 'dist', 'quern.js'));
+const cli = opt('cli', join(root, 'dist', 'quern.cjs'));
 if (!existsSync(cli)) {
   console.error('bench: build first (npx tsc -p .)');
   process.exit(2);

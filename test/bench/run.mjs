@@ -3,7 +3,7 @@
 // approach on them in one run and prints a table of wall time, MB/s, rows/s, peak memory and ratios.
 //
 //   node test/bench/run.mjs [--sizes 1000000,10000000] [--repeat 3] [--skip duckdb,naive,quoted] [--only rebin]
-//                           [--cli path/to/quern.js] [--keep]
+//                           [--cli path/to/quern.cjs] [--keep]
 //
 // Needs the built CLI (`npm run build`). Peak memory is the child's maximum resident set size as
 // reported by /usr/bin/time (NaN without it). Every approach is a fresh process, so wall times include
@@ -26,7 +26,7 @@ const opt = (name, dflt) => {
   const i = args.indexOf(`--${name}`);
   return i >= 0 ? args[i + 1] : dflt;
 };
-const cli = opt('cli', join(root, 'dist', 'quern.js'));
+const cli = opt('cli', join(root, 'dist', 'quern.cjs'));
 const sizes = opt('sizes', '1000000,10000000').split(',').map(Number);
 const repeat = Number(opt('repeat', '3'));
 const skip = new Set(opt('skip', '').split(',').filter(Boolean));

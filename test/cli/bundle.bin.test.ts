@@ -1,4 +1,4 @@
-// The bundled binary (dist/quern.js, made by cli/bundle.mjs) starts its bundled worker threads
+// The bundled binary (dist/quern.cjs, made by cli/bundle.mjs) starts its bundled worker threads
 // (dist/workers): a run on two threads must give what one thread gives. The file is over 32 MB, the size
 // from which the CLI reads a file in byte ranges (cli/threads.ts).
 import { execFileSync } from 'node:child_process';
@@ -11,7 +11,7 @@ import { cachePathOf, compileBundle } from '../../cli/code-cache.js';
 import { timeFormat } from '../../src/time/format.js';
 import { afterAll, describe, expect, it } from 'vitest';
 
-const main = fileURLToPath(new URL('../../dist/quern.js', import.meta.url));
+const main = fileURLToPath(new URL('../../dist/quern.cjs', import.meta.url));
 const dir = mkdtempSync(join(tmpdir(), 'quern-bundle-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -19,7 +19,7 @@ function quern(args: string[]): string {
   return execFileSync(process.execPath, [main, ...args], { encoding: 'utf8', env: { ...process.env, NO_COLOR: '1' }, maxBuffer: 1 << 26 });
 }
 
-describe('dist/quern.js on two threads', () => {
+describe('dist/quern.cjs on two threads', () => {
   it.skipIf(!existsSync(main))('rebin, bucket and profile give the one-thread results (workers find their modules)', () => {
     const file = join(dir, 'events.csv');
     const rows: string[] = ['ts,age'];
@@ -43,10 +43,10 @@ describe('dist/quern.js on two threads', () => {
     expect(p1.columns.map((c: { role: string }) => c.role)[0]).toBe('time');
   });
 
-  const rangeWorker = fileURLToPath(new URL('../../dist/workers/range-worker.js', import.meta.url));
+  const rangeWorker = fileURLToPath(new URL('../../dist/workers/range-worker.cjs', import.meta.url));
   it.skipIf(!existsSync(main))('the bundled range worker carries its tasks: it runs rebinRange without importing the module named', async () => {
     expect(existsSync(rangeWorker)).toBe(true);
-    expect(existsSync(fileURLToPath(new URL('../../dist/workers/column-worker.js', import.meta.url)))).toBe(true);
+    expect(existsSync(fileURLToPath(new URL('../../dist/workers/column-worker.cjs', import.meta.url)))).toBe(true);
     const file = join(dir, 'small.csv');
     writeFileSync(file, 'ts\n2024-01-01T00:00:00Z\n2024-01-08T00:00:00Z\n2024-01-09T00:00:00Z\n');
     // A module URL that does not exist: a worker that imported it would fail.
@@ -73,7 +73,7 @@ describe('dist/quern.js on two threads', () => {
 });
 
 describe('the code caches of the bundles (cli/bundle.mjs, cli/code-cache.ts)', () => {
-  const bundles = ['../../dist/quern.cjs', '../../dist/workers/range-worker.cjs', '../../dist/workers/column-worker.cjs'].map((u) => fileURLToPath(new URL(u, import.meta.url)));
+  const bundles = ['../../dist/quern.bundle.cjs', '../../dist/workers/range-worker.bundle.cjs', '../../dist/workers/column-worker.bundle.cjs'].map((u) => fileURLToPath(new URL(u, import.meta.url)));
   it.skipIf(!existsSync(main))('are accepted by the V8 that made them, for every bundle', () => {
     for (const file of bundles) {
       const cache = readFileSync(cachePathOf(file));

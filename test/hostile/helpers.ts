@@ -12,7 +12,7 @@ export const ROOT = fileURLToPath(new URL('../../', import.meta.url));
 /** Hand-written hostile inputs committed beside the tests. */
 export const INPUTS = fileURLToPath(new URL('./inputs/', import.meta.url));
 /** The built command-line program (`npx tsc -p .` makes it). */
-export const BIN = join(ROOT, 'dist/quern.js');
+export const BIN = join(ROOT, 'dist/quern.cjs');
 
 export interface Scratch {
   dir: string;

@@ -13,7 +13,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BIN, STACK_LINE, scratch } from './helpers.js';
 
-const SKIP = existsSync(BIN) ? '' : '(skipped: dist/quern.js is not built; run npm run build)';
+const SKIP = existsSync(BIN) ? '' : '(skipped: dist/quern.cjs is not built; run npm run build)';
 const linux = process.platform === 'linux' && existsSync('/proc/self/fd');
 
 const tmp = scratch('interrupt');
