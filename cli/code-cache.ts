@@ -1,10 +1,9 @@
 // How a bundle of the binary is run through V8's code cache: cli/bundle.mjs writes each bundle as a
 // CommonJS file (<name>.bundle.cjs) and, beside it, the cache V8 made when compiling it
 // (<name>.bundle.cache); the launcher <name>.cjs (cli/launch.ts) compiles the same wrapped text with that
-// cache. V8 then skips parsing the
-// bundle at every start: a one-row rebin took 0.21 s, 0.175 s with the cache (30 runs each, interleaved).
-// V8 rejects a cache made by another Node version or under other V8 flags, and the bundle is then compiled
-// as usual.
+// cache. V8 then skips parsing the bundle at every start: a one-row rebin took 0.21 s, 0.175 s with the
+// cache (30 runs each, interleaved). V8 rejects a cache made by another Node version or under other V8
+// flags, and the bundle is then compiled as usual.
 import { readFileSync } from 'node:fs';
 import vm from 'node:vm';
 
