@@ -320,6 +320,7 @@ export class FastBody<B> {
     const { input, output, state } = kernel;
     const nw = wanted.length;
     const len = buf.length;
+    const width = this.ctx.width;
     const until = stop < 0x7fffffff ? stop : 0x7fffffff;
     let line = this.line;
     let passed = 0;
@@ -340,6 +341,30 @@ export class FastBody<B> {
       const n = quotes
         ? kernel.quotedRecords(spanEnd - span, span, want, stride, until, ahead, this.delimiter)
         : kernel.records(spanEnd - span, span, want, stride, until, ahead, this.delimiter);
+      if (bytes !== null && bytes.takesBlocks && valid && width > 1) {
+        // Valid UTF-8 and more than one column: a record is taken when it is as wide as the header (a blank
+        // line has one field), so the kernel finds the records that are not, and the runs between them go to
+        // the batch builder a block at a time. Checking each record here instead cost about 4 ns a row (the
+        // range task over 10M rows: 0.61 s against 0.65-0.67 s, 3 runs each).
+        let from = 0;
+        while (from < n) {
+          const other = kernel.firstOther(from, n, stride, width);
+          if (other > from) {
+            bytes.kernelRows(output, from * stride, other - from, stride, this.wanted, line);
+            passed += other - from;
+            line += other - from;
+            record = output[(other - 1) * stride]!;
+          }
+          if (other >= n) break;
+          this.kernelOther(buf, record, line, valid);
+          line++;
+          record = output[other * stride]!;
+          from = other + 1;
+        }
+        if (state[5] !== KernelStop.Spent) break;
+        span = spanEnd;
+        continue;
+      }
       if (bytes !== null && bytes.takesBlocks) {
         // Runs of accepted records go to the batch builder a block at a time.
         let from = 0;

@@ -39,6 +39,8 @@ export interface RecordKernel {
   records(length: number, base: number, want: number, stride: number, stop: number, ahead: 0 | 1, delimiter: number): number;
   /** The same walk over input that may hold quotes: reads simple quoted fields, stops at other quotes (KernelStop.Quote). */
   quotedRecords(length: number, base: number, want: number, stride: number, stop: number, ahead: 0 | 1, delimiter: number): number;
+  /** The first of OUTPUT's records from..n-1 whose field count is not `width`, or n. */
+  firstOther(from: number, n: number, stride: number, width: number): number;
 }
 
 let shared: RecordKernel | null | undefined;
@@ -64,12 +66,14 @@ export function recordKernel(): RecordKernel | null {
     const memory = (instance.exports['memory'] as { buffer: ArrayBuffer }).buffer;
     const records = instance.exports['records'] as RecordKernel['records'];
     const quotedRecords = instance.exports['quotedRecords'] as RecordKernel['quotedRecords'];
+    const firstOther = instance.exports['firstOther'] as RecordKernel['firstOther'];
     shared = {
       input: new Uint8Array(memory, 0, RECORD_SPAN + 1),
       state: new Int32Array(memory, STATE, 8),
       output: new Int32Array(memory, OUTPUT, (memory.byteLength - OUTPUT) >> 2),
       records,
       quotedRecords,
+      firstOther,
     };
   } catch {
     shared = null;

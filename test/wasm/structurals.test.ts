@@ -243,6 +243,24 @@ describe('the WebAssembly record kernel', () => {
     expect(JSON.stringify(whole)).toBe(JSON.stringify(defined(model(buf, 0, buf.length, wanted, 0x7fffffff, COMMA, quotes), wanted)));
   });
 
+  it('finds the first record whose field count is not the header\'s, from any record on (firstOther)', () => {
+    const k = recordKernel()!;
+    // Model: the first r in [from, n) with output[r * stride + 1] !== width, else n.
+    fc.assert(fc.property(
+      fc.integer({ min: 2, max: 18 }), fc.array(fc.integer({ min: 1, max: 6 }), { maxLength: 300 }), fc.integer({ min: 1, max: 6 }), fc.nat(),
+      (stride, counts, width, start) => {
+        for (let r = 0; r < counts.length; r++) {
+          k.output[r * stride] = 1000 + r; // record end
+          k.output[r * stride + 1] = counts[r]!;
+        }
+        const from = counts.length === 0 ? 0 : start % (counts.length + 1);
+        let expected = from;
+        while (expected < counts.length && counts[expected] === width) expected++;
+        expect(k.firstOther(from, counts.length, stride, width)).toBe(expected);
+      },
+    ), { numRuns: 500 });
+  });
+
   it('takes at most 8 wanted fields, numbered below 32', () => {
     expect(wantedMask([0, 31])).toBe((1 | (1 << 31)) | 0);
     expect(wantedMask([32])).toBeNull();
