@@ -44,36 +44,38 @@ const moduleUrls = (outfile) => ({
 /** Strict mode, and `__quernUrl` (what `import.meta.url` becomes in CommonJS output): the file's own URL. */
 const URL_BANNER = '"use strict";var __quernUrl=require("node:url").pathToFileURL(__filename).href;';
 
+/**
+ * What the bundles and their launchers share: CommonJS for Node 20. ES modules are strict, and so is their
+ * bundle; `import.meta.url` is the file's own URL where the moduleUrls plugin does not rewrite it.
+ */
+const COMMONJS = {
+  bundle: true,
+  platform: 'node',
+  format: 'cjs',
+  target: 'node20',
+  logLevel: 'warning',
+  define: { 'import.meta.url': '__quernUrl' },
+};
+
 /** Bundles `entry` into `<name>.bundle.cjs` with its code cache, and writes the launcher `<name>.cjs`. */
 async function bundle(entry, launcher, shebang = false) {
   const outfile = bundlePathOf(launcher);
   await build({
+    ...COMMONJS,
     entryPoints: [entry],
     outfile,
-    bundle: true,
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
     minify: true,
     keepNames: true,
     charset: 'ascii',
     plugins: [moduleUrls(outfile)],
-    logLevel: 'warning',
-    // ES modules are strict, and so is their bundle; `import.meta.url` is the bundle's own URL.
-    define: { 'import.meta.url': '__quernUrl' },
     banner: { js: URL_BANNER },
   });
   const { script } = compileBundle(outfile);
   writeFileSync(cachePathOf(outfile), script.createCachedData());
   await build({
+    ...COMMONJS,
     entryPoints: [join(root, 'dist', 'cli', 'launch.js')],
     outfile: launcher,
-    bundle: true,
-    platform: 'node',
-    format: 'cjs',
-    target: 'node20',
-    logLevel: 'warning',
-    define: { 'import.meta.url': '__quernUrl' },
     banner: { js: `${shebang ? '#!/usr/bin/env node\n' : ''}${URL_BANNER}` },
   });
 }

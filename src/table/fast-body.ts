@@ -341,14 +341,16 @@ export class FastBody<B> {
       const n = quotes
         ? kernel.quotedRecords(spanEnd - span, span, want, stride, until, ahead, this.delimiter)
         : kernel.records(spanEnd - span, span, want, stride, until, ahead, this.delimiter);
-      if (bytes !== null && bytes.takesBlocks && valid && width > 1) {
-        // Valid UTF-8 and more than one column: a record is taken when it is as wide as the header (a blank
-        // line has one field), so the kernel finds the records that are not, and the runs between them go to
-        // the batch builder a block at a time. Checking each record here instead cost about 4 ns a row (the
-        // range task over 10M rows: 0.61 s against 0.65-0.67 s, 3 runs each).
+      if (bytes !== null && bytes.takesBlocks) {
+        // Runs of records the sink takes go to the batch builder a block at a time, and each record between
+        // runs is read again for its diagnostics. For valid UTF-8 with more than one column a record is
+        // taken when it is as wide as the header (a blank line has one field), so the kernel finds where a
+        // run ends (firstOther); checking each record here instead cost about 4 ns a row (the range task
+        // over 10M rows: 0.61 s against 0.65-0.67 s, 3 runs each). Otherwise each record is checked here.
+        const byWidth = valid && width > 1;
         let from = 0;
         while (from < n) {
-          const other = kernel.firstOther(from, n, stride, width);
+          const other = byWidth ? kernel.firstOther(from, n, stride, width) : this.firstNotTaken(buf, output, from, n, stride, record, valid);
           if (other > from) {
             bytes.kernelRows(output, from * stride, other - from, stride, this.wanted, line);
             passed += other - from;
@@ -361,26 +363,6 @@ export class FastBody<B> {
           record = output[other * stride]!;
           from = other + 1;
         }
-        if (state[5] !== KernelStop.Spent) break;
-        span = spanEnd;
-        continue;
-      }
-      if (bytes !== null && bytes.takesBlocks) {
-        // Runs of accepted records go to the batch builder a block at a time.
-        let from = 0;
-        for (let r = 0, o = 0; r < n; r++, o += stride) {
-          const end = output[o]!;
-          if (!this.takes(buf, record, end, output[o + 1]!, valid)) {
-            if (r > from) bytes.kernelRows(output, from * stride, r - from, stride, this.wanted, line - (r - from));
-            passed += r - from;
-            from = r + 1;
-            this.kernelOther(buf, record, line, valid);
-          }
-          line++;
-          record = end;
-        }
-        if (n > from) bytes.kernelRows(output, from * stride, n - from, stride, this.wanted, line - (n - from));
-        passed += n - from;
         if (state[5] !== KernelStop.Spent) break;
         span = spanEnd;
         continue;
@@ -408,6 +390,20 @@ export class FastBody<B> {
     this.line = line;
     this.passed += passed;
     return record;
+  }
+
+  /**
+   * The first of the kernel's records from..n-1 (the first starting at `start`) that `takes` refuses, or n:
+   * firstOther's answer when records may be blank lines of a one-column table or not UTF-8.
+   */
+  private firstNotTaken(buf: Buffer, output: Int32Array, from: number, n: number, stride: number, start: number, valid: boolean): number {
+    let record = start;
+    for (let r = from, o = from * stride; r < n; r++, o += stride) {
+      const end = output[o]!;
+      if (!this.takes(buf, record, end, output[o + 1]!, valid)) return r;
+      record = end;
+    }
+    return n;
   }
 
   /** True when the kernel's record buf[record, end) of `f` fields is a whole row: as wide as the header, not a blank line, UTF-8. */
