@@ -57,6 +57,8 @@ function build(spec: FileSpec): { bytes: Buffer; recordStarts: Set<number> } {
   let prevEnd = endOf('\n');
   push(Array.from({ length: spec.width }, (_, i) => `c${i}`).join(d) + prevEnd);
   const starts = new Set<number>();
+  // Whether the last row has no line end (the file's last row, without trailingEnd).
+  let open = false;
   spec.rows.forEach((row, idx) => {
     const last = idx === spec.rows.length - 1;
     let end = last && !spec.trailingEnd ? '' : endOf(row.end);
@@ -87,8 +89,11 @@ function build(spec: FileSpec): { bytes: Buffer; recordStarts: Set<number> } {
     push(row.kind === 2 ? Buffer.concat([text, Buffer.from([0xe9])]) : text);
     push(end);
     if (end !== '') prevEnd = end;
+    open = end === '';
   });
   if (spec.unterminated === 0) {
+    // The open quote starts a record of its own: after a line end (else it would run on the last row's line).
+    if (open) push('\n');
     starts.add(size);
     push('"never\nclosed\r\n,' + d + '\rstill open\n');
   }
