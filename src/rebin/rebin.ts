@@ -5,6 +5,7 @@ import type { Calendar } from '../calendar/types.js';
 import { QuernError } from '../errors.js';
 import type { ByteBatch, ColumnBatch, ReadSummary, TableReader } from '../table/types.js';
 import { byteFieldString } from '../table/byte-batch.js';
+import type { KernelTally } from '../table/structurals.js';
 import { getZone } from '../time/zone.js';
 import type { Zone } from '../time/zone.js';
 import { CellStore, DEFAULT_LIMITS } from './accumulate.js';
@@ -137,7 +138,8 @@ async function scanBytes(reader: TableReader, columns: readonly string[], make: 
     return { setup, scan };
   };
   // Once the first rows are scanned no batch is kept: the reader may reuse its buffers.
-  const read = { transient: false };
+  // From then on, a count of instants may be tallied straight from the record kernel (RebinScan.startTally).
+  const read: { transient: boolean; tally: KernelTally | null } = { transient: false, tally: null };
   for await (const b of reader.byteBatches([columns[0]!], columns.slice(1), read)) {
     if (ready !== null) {
       ready.scan.bytes(b, view(b));
@@ -148,8 +150,11 @@ async function scanBytes(reader: TableReader, columns: readonly string[], make: 
     if (have >= want) {
       ready = start();
       read.transient = true;
+      read.tally = ready.scan.startTally();
     }
   }
+  read.tally = null;
+  ready?.scan.finishTally();
   return ready ?? start();
 }
 

@@ -9,6 +9,7 @@ import { byteFieldString } from '../table/byte-batch.js';
 import type { ParsedTime } from '../time/types.js';
 import { emptyParsedTime } from '../time/types.js';
 import { fastIsoBytes, newIsoDateMemo } from '../time/iso-bytes.js';
+import { InstantTally } from './instant-tally.js';
 import type { CellStore } from './accumulate.js';
 import type { KeyExtremes } from './fill.js';
 import { emptyExtremes, noteExtreme } from './fill.js';
@@ -90,6 +91,7 @@ export class RebinScan {
   private lastKey = 0;
   private lastLo = Infinity;
   private lastHi = -Infinity;
+  private tally: InstantTally | null = null;
 
   constructor(setup: ScanSetup, toWall: (ms: number) => number) {
     this.s = setup;
@@ -184,6 +186,25 @@ export class RebinScan {
     }
     // Added once a batch (nothing reads it before the batch ends; a throw discards the scan).
     counts.used += used;
+  }
+
+  /**
+   * A tally that counts this scan's instants straight from the record kernel (see instant-tally.ts), for
+   * a count with no groups and no measures of a column read in ISO 8601; null otherwise. Its rows take no
+   * part in `bytes`: `finishTally` adds them in.
+   */
+  startTally(): InstantTally | null {
+    const s = this.s;
+    if (this.tally !== null || s.measures.length > 0 || s.bySlots.length > 0 || !s.time.isoFast) return this.tally;
+    this.tally = new InstantTally({ cal: s.cal, store: s.store, fromKey: s.fromKey ?? -Infinity, untilKey: s.untilKey ?? Infinity, offsets: this.counts.offsets });
+    return this.tally;
+  }
+
+  /** Adds the tally's counts, rows and extremes to the scan's, once the read has ended. */
+  finishTally(): void {
+    if (this.tally === null) return;
+    this.counts.used += this.tally.finish(this.counts.extremes);
+    this.tally = null;
   }
 
   /** The period key of an instant or wall-clock reading in `pt`, through the last-period cache. */

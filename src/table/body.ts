@@ -2,6 +2,7 @@
 // the wording of each rejection, so the fast path and the reference path report alike.
 import type { RowAccount } from './accounting.js';
 import type { ByteSource } from './source.js';
+import type { ByteReadOptions } from './types.js';
 
 /** Everything a body reader needs: the source positioned just after the header. */
 export interface BodyContext {
@@ -25,9 +26,10 @@ export interface BodyContext {
   end: number;
   /**
    * The consumer's promise, read afresh at every buffer: while `transient` is true it holds no batch
-   * once it asks for the next, so read buffers and batch arrays may be reused (TableReader.byteBatches).
+   * once it asks for the next, so read buffers and batch arrays may be reused; its `tally`, when set,
+   * counts rows itself (TableReader.byteBatches).
    */
-  read: { readonly transient?: boolean };
+  read: ByteReadOptions;
   /** Whether the SIMD kernel may find a comma-separated file's delimiters (TableOptions.simd). */
   simd: boolean;
 }

@@ -77,6 +77,11 @@ export class ByteBatchBuilder implements RowSink<ByteBatch> {
     if (this.length === this.size) this.seal();
   }
 
+  /** How many byte columns it fills (the first of `fields` is the first of them). */
+  get byteColumnCount(): number {
+    return this.byteColumns.length;
+  }
+
   /** True when rows may come in blocks from the record kernel (no string columns to decode). */
   get takesBlocks(): boolean {
     return this.stringColumns.length === 0;

@@ -10,7 +10,7 @@ import type { BodyContext } from './body.js';
 import { rowPreview, rejectMalformed, rejectRagged, rejectUndecodable } from './body.js';
 import type { RowSink } from './row-sink.js';
 import { ByteBatchBuilder } from './byte-batch.js';
-import { KernelStop, RECORD_SPAN, recordKernel, wantedMask, type RecordKernel } from './structurals.js';
+import { KernelStop, RECORD_SPAN, recordKernel, wantedMask, type KernelTally, type RecordKernel } from './structurals.js';
 
 const LF = 0x0a;
 const CR = 0x0d;
@@ -52,6 +52,8 @@ export class FastBody<B> {
   private readonly wanted: Int32Array;
   private readonly want: number;
   private readonly stride: number;
+  /** The slot among `wanted` of the byte sink's first column (the one a tally reads), or -1. */
+  private readonly tallySlot: number;
 
   constructor(
     private readonly ctx: BodyContext,
@@ -66,6 +68,7 @@ export class FastBody<B> {
     const want = wantedMask([...this.wanted]);
     this.want = want ?? 0;
     this.stride = 2 + 2 * this.wanted.length;
+    this.tallySlot = this.bytes !== null && this.bytes.byteColumnCount > 0 ? this.wanted.indexOf(this.bytes.fields[0]!) : -1;
     this.kernel = ctx.simd && want !== null ? recordKernel() : null;
   }
 
@@ -352,7 +355,9 @@ export class FastBody<B> {
         while (from < n) {
           const other = byWidth ? kernel.firstOther(from, n, stride, width) : this.firstNotTaken(buf, output, from, n, stride, record, valid);
           if (other > from) {
-            bytes.kernelRows(output, from * stride, other - from, stride, this.wanted, line);
+            const tally = this.ctx.read.tally;
+            if (tally != null && tally.active && this.tallySlot >= 0) this.tallied(tally, kernel, bytes, buf, from, other, span, line);
+            else bytes.kernelRows(output, from * stride, other - from, stride, this.wanted, line);
             passed += other - from;
             line += other - from;
             record = output[(other - 1) * stride]!;
@@ -390,6 +395,25 @@ export class FastBody<B> {
     this.line = line;
     this.passed += passed;
     return record;
+  }
+
+  /**
+   * The kernel's records from..to-1, whole rows on the lines from `line`, through the tally: the records
+   * it does not count go to the batch builder one by one, and all that follow once it stops taking any.
+   */
+  private tallied(tally: KernelTally, kernel: RecordKernel, bytes: ByteBatchBuilder, buf: Buffer, from: number, to: number, span: number, line: number): void {
+    const { stride, wanted } = this;
+    let r = from;
+    while (r < to) {
+      const t = tally.take(kernel, buf, r, to, stride, this.tallySlot, span, line + (r - from));
+      if (t >= to) return;
+      bytes.kernelRows(kernel.output, t * stride, 1, stride, wanted, line + (t - from));
+      r = t + 1;
+      if (!tally.active) {
+        if (r < to) bytes.kernelRows(kernel.output, r * stride, to - r, stride, wanted, line + (r - from));
+        return;
+      }
+    }
   }
 
   /**

@@ -11,9 +11,11 @@ export const RECORD_SPAN = 1 << 16;
 /** Most wanted fields per record, and the highest field number one may have plus one. */
 export const MAX_WANTED = 8;
 export const MAX_WANTED_FIELD = 32;
-/** Where STATE and OUTPUT begin in the kernel's memory (see structurals.wat). */
+/** Where STATE and OUTPUT begin in the kernel's memory (see structurals.wat), and where OUTPUT ends: the
+ *  pages after it are TALLY's (src/rebin/instant-tally.wat). */
 const STATE = 65_600;
 const OUTPUT = 65_728;
+const OUTPUT_END = 80 * 65_536;
 
 /** Why the last `records` call stopped (STATE's status). */
 export const enum KernelStop {
@@ -35,6 +37,8 @@ export interface RecordKernel {
   readonly state: Int32Array;
   /** OUTPUT as i32: per record `stride` values (end, fields, then start and end per wanted field). */
   readonly output: Int32Array;
+  /** The kernel's memory, for modules that read its input and output in place (src/rebin/instant-tally.wat). */
+  readonly memory: object;
   /** Walks quote-free input[0, length) (byte i being `base` + i of the caller's buffer); returns records written. */
   records(length: number, base: number, want: number, stride: number, stop: number, ahead: 0 | 1, delimiter: number): number;
   /** The same walk over input that may hold quotes: reads simple quoted fields, stops at other quotes (KernelStop.Quote). */
@@ -63,14 +67,16 @@ export function recordKernel(): RecordKernel | null {
   try {
     const module = new wasm.Module(Buffer.from(STRUCTURALS_WASM, 'base64'));
     const instance = new wasm.Instance(module, {});
-    const memory = (instance.exports['memory'] as { buffer: ArrayBuffer }).buffer;
+    const memoryObject = instance.exports['memory'] as { buffer: ArrayBuffer };
+    const memory = memoryObject.buffer;
     const records = instance.exports['records'] as RecordKernel['records'];
     const quotedRecords = instance.exports['quotedRecords'] as RecordKernel['quotedRecords'];
     const firstOther = instance.exports['firstOther'] as RecordKernel['firstOther'];
     shared = {
       input: new Uint8Array(memory, 0, RECORD_SPAN + 1),
       state: new Int32Array(memory, STATE, 8),
-      output: new Int32Array(memory, OUTPUT, (memory.byteLength - OUTPUT) >> 2),
+      output: new Int32Array(memory, OUTPUT, (OUTPUT_END - OUTPUT) >> 2),
+      memory: memoryObject,
       records,
       quotedRecords,
       firstOther,
@@ -90,4 +96,20 @@ export function wantedMask(fields: readonly number[]): number | null {
     mask |= 1 << f;
   }
   return mask;
+}
+
+/**
+ * A consumer that counts some of the kernel's records itself, before they would become batches (rebin's
+ * instant tally). Set as `tally` in a byte read's options; a reader asks it afresh at every buffer.
+ */
+export interface KernelTally {
+  /** False once it takes no more records: the reader then hands them all on as batches. */
+  readonly active: boolean;
+  /**
+   * Counts what it can of OUTPUT's records from..n-1, which are whole rows of the header's width on the
+   * consecutive lines from `line`, whose wanted field `slot` is the field it reads (input byte i being
+   * byte `base` + i of `buf`); returns the first record it did not count, or n. The reader hands that
+   * record on as a batch row and calls again from the next.
+   */
+  take(kernel: RecordKernel, buf: Buffer, from: number, n: number, stride: number, slot: number, base: number, line: number): number;
 }

@@ -14,16 +14,17 @@
 ;; Compiled by `npm run wasm` into structurals-wasm.ts; test/wasm checks the two agree
 ;; and holds the kernel to a plain JavaScript model.
 ;;
-;; Memory (80 pages of 64 KiB, never grown, so JavaScript views of it stay valid):
+;; Memory (89 pages of 64 KiB, never grown, so JavaScript views of it stay valid; the 9 pages after the
+;; first 80 are TALLY, the area of src/rebin/instant-tally.wat, which reads INPUT and OUTPUT in place):
 ;;   [0, 65552)          INPUT: up to SPAN = 65536 bytes to scan, the byte after them, and slack
 ;;   [65600, 65632)      STATE: i32 record start, field start, field number, LF to skip, wanted slot, status,
 ;;                       quote state (0 outside quotes, 1 inside, 2 just after a closing quote)
 ;;   [65664, 65728)      CARRY: the wanted bounds already found of a record that runs on into the next call
-;;   [65728, ...)        OUTPUT: one block of `stride` i32 per record: end, fields, then start and end of
+;;   [65728, 5242880)    OUTPUT: one block of `stride` i32 per record: end, fields, then start and end of
 ;;                       each wanted field in field order
 ;; Offsets in STATE and OUTPUT are absolute: input byte i is at `base` + i in the caller's buffer.
 (module
-  (memory (export "memory") 80)
+  (memory (export "memory") 89)
 
   ;; Walks quote-free input[0, length) into records, fields split at byte `delim`; returns how many it
   ;; wrote. A record unfinished at `length` is carried in STATE to the next call. Stops early, with

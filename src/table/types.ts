@@ -1,5 +1,6 @@
 // Plain data types of table input: batches of columns, never one object per row.
 import type { Diagnostic } from '../errors.js';
+import type { KernelTally } from './structurals.js';
 
 export type TableFormat = 'csv' | 'tsv' | 'ndjson';
 
@@ -145,11 +146,19 @@ export interface TableReader {
    * `byteBatches` may be read per open table. While `read.transient` is true (the caller may set it once
    * it has let go of the first batches it kept), the caller promises to hold no batch, nor its buffer or
    * arrays, once it asks for the next one; the reader then fills its read buffers and batch arrays again
-   * instead of allocating new ones (less memory, fewer page faults).
+   * instead of allocating new ones (less memory, fewer page faults). While `read.tally` is set and
+   * active, the fast CSV path lets it count the whole rows it can straight from the record kernel: those
+   * rows are in no batch (the accounting still counts them as passed).
    */
-  byteBatches(byteColumns: readonly string[], stringColumns?: readonly string[], read?: { readonly transient?: boolean }): AsyncIterable<ByteBatch>;
+  byteBatches(byteColumns: readonly string[], stringColumns?: readonly string[], read?: ByteReadOptions): AsyncIterable<ByteBatch>;
   /** Row accounting; complete once `batches` has been read to the end. */
   summary(): ReadSummary;
   /** Releases the file when the caller stops before the end of `batches`. */
   close(): void;
+}
+
+/** The consumer's side of a byte read, read afresh at every buffer (see `byteBatches`). */
+export interface ByteReadOptions {
+  readonly transient?: boolean;
+  readonly tally?: KernelTally | null;
 }

@@ -4,6 +4,7 @@ import wabtInit from 'wabt';
 /** Each module: its text, the generated TypeScript file holding its bytes, and the constant's name. */
 export const WASM_MODULES = [
   { wat: 'src/table/structurals.wat', ts: 'src/table/structurals-wasm.ts', name: 'STRUCTURALS_WASM' },
+  { wat: 'src/rebin/instant-tally.wat', ts: 'src/rebin/instant-tally-wasm.ts', name: 'INSTANT_TALLY_WASM' },
   { wat: 'src/bins/row-gather.wat', ts: 'src/bins/row-gather-wasm.ts', name: 'ROW_GATHER_WASM' },
 ];
 
