@@ -36,6 +36,9 @@
     (local $p i32) (local $m i32) (local $v v128) (local $left i32) (local $s i32) (local $abs i32) (local $c i32)
     (local $rec i32) (local $field i32) (local $f i32) (local $skip i32) (local $slot i32)
     (local $o i32) (local $n i32) (local $end i32) (local $status i32)
+    (local $eol v128) (local $breaks i32) (local $last i32) (local $below i32)
+    ;; The highest wanted field: past it, a record's delimiters are only counted (see below).
+    (local.set $last (i32.sub (i32.const 31) (i32.clz (local.get $want))))
     (local.set $rec (i32.load (i32.const 65600)))
     (local.set $field (i32.load (i32.const 65604)))
     (local.set $f (i32.load (i32.const 65608)))
@@ -48,13 +51,11 @@
       (loop $block
         (br_if $exit (i32.ge_u (local.get $p) (local.get $length)))
         (local.set $v (v128.load align=1 (local.get $p)))
+        (local.set $eol
+          (v128.or (i8x16.eq (local.get $v) (i8x16.splat (i32.const 10))) (i8x16.eq (local.get $v) (i8x16.splat (i32.const 13)))))
+        (local.set $breaks (i8x16.bitmask (local.get $eol)))
         (local.set $m
-          (i8x16.bitmask
-            (v128.or
-              (v128.or
-                (i8x16.eq (local.get $v) (i8x16.splat (local.get $delim)))
-                (i8x16.eq (local.get $v) (i8x16.splat (i32.const 10))))
-              (i8x16.eq (local.get $v) (i8x16.splat (i32.const 13))))))
+          (i8x16.bitmask (v128.or (i8x16.eq (local.get $v) (i8x16.splat (local.get $delim))) (local.get $eol))))
         ;; The last block: keep only the bits of bytes before `length`.
         (local.set $left (i32.sub (local.get $length) (local.get $p)))
         (if (i32.lt_u (local.get $left) (i32.const 16))
@@ -65,6 +66,19 @@
         (block $bits
           (loop $bit
             (br_if $bits (i32.eqz (local.get $m)))
+            ;; Past the last wanted field every structural byte before the line break is a delimiter:
+            ;; they are counted a block at a time (the records of a file whose wanted fields come
+            ;; first then cost one step for those fields and one for the line break).
+            (if (i32.gt_s (local.get $f) (local.get $last))
+              (then
+                (if (i32.eqz (i32.and (local.get $m) (local.get $breaks)))
+                  (then
+                    (local.set $f (i32.add (local.get $f) (i32.popcnt (local.get $m))))
+                    (br $bits)))
+                (local.set $below (i32.and (local.get $m) (local.get $breaks)))
+                (local.set $below (i32.sub (i32.and (local.get $below) (i32.sub (i32.const 0) (local.get $below))) (i32.const 1)))
+                (local.set $f (i32.add (local.get $f) (i32.popcnt (i32.and (local.get $m) (local.get $below)))))
+                (local.set $m (i32.and (local.get $m) (i32.xor (local.get $below) (i32.const -1))))))
             (local.set $s (i32.add (local.get $p) (i32.ctz (local.get $m))))
             (local.set $m (i32.and (local.get $m) (i32.sub (local.get $m) (i32.const 1))))
             (local.set $abs (i32.add (local.get $base) (local.get $s)))
