@@ -146,38 +146,78 @@ function poolFor(size: number): BufferPool {
   return p;
 }
 
-/** The read under way in a pooled file stream: its buffer, and a promise that settles with it. */
-interface InFlight {
-  buf: Buffer | null;
-  settled: Promise<unknown>;
-}
+/** The reads of a pooled file stream not yet handed on: a promise that settles with each, and its buffer. */
+type InFlight = Map<Promise<unknown>, Buffer>;
 
-/** Chunks of a regular file read into pooled buffers, with the next read already under way. */
+/**
+ * The first read of a file is at most this long: a reader that looks at the first rows before it settles
+ * on how to read the rest (rebin infers its formats from 2,000 rows, then counts instants in WebAssembly)
+ * reads the rest of a first chunk the slow way, and a whole 1 MiB chunk held 28,000 rows of the
+ * benchmark's file (rebin on 10M rows: 0.52 against 0.49 s).
+ */
+const FIRST_READ = 1 << 17;
+
+/** Chunks of a regular file read into pooled buffers, with the next reads already under way. */
 function pooledReads(handle: FileHandle, pool: BufferPool, position: number, state: InFlight): AsyncIterable<Buffer> {
-  const readAt = (at: number): Promise<{ buf: Buffer; n: number }> => {
+  let size = Math.min(pool.size, FIRST_READ);
+  const readAt = (at: number, len: number): Promise<{ buf: Buffer; n: number; len: number }> => {
     const buf = pool.take();
-    const p = handle.read(buf, 0, pool.size, at).then((r) => ({ buf, n: r.bytesRead }));
-    state.buf = buf;
-    state.settled = p.catch(() => undefined);
+    const p = handle.read(buf, 0, len, at).then((r) => ({ buf, n: r.bytesRead, len }));
+    state.set(p.catch(() => undefined), buf);
     return p;
+  };
+  /** The read whose buffer is `buf` is no longer the stream's to release on close. */
+  const settle = (buf: Buffer): void => {
+    for (const [k, b] of state) if (b === buf) state.delete(k);
   };
   return {
     async *[Symbol.asyncIterator]() {
-      let next = readAt(position);
+      const queue: Array<Promise<{ buf: Buffer; n: number; len: number }>> = [];
+      let ahead = position;
+      const more = (): void => {
+        while (queue.length < AHEAD) {
+          queue.push(readAt(ahead, size));
+          ahead += size;
+          size = pool.size;
+        }
+      };
+      more();
+      // Reads still under way are dropped: their buffers go back to the pool once they are done.
+      const drop = (): void => {
+        for (const q of queue) {
+          void q.then((r) => {
+            settle(r.buf);
+            pool.release(r.buf);
+          }, () => undefined);
+        }
+        queue.length = 0;
+      };
       for (;;) {
-        const { buf, n } = await next;
-        state.buf = null;
+        const { buf, n, len } = await queue.shift()!;
+        settle(buf);
         if (n === 0) {
           pool.release(buf);
+          drop();
           return;
         }
         position += n;
-        next = readAt(position);
+        if (n < len) {
+          // A short read (the end of the file, or a file that changed): the reads after it start again here.
+          drop();
+          ahead = position;
+        }
+        more();
         yield buf.subarray(0, n);
       }
     },
   };
 }
+
+/**
+ * Reads under way at once. With one, rebin on 10M rows waited for the disk cache now and then (0.52 s
+ * against 0.50 s with two, medians of 9 runs interleaved).
+ */
+const AHEAD = 2;
 
 async function fileStream(file: string, options: SourceOptions): Promise<RawStream> {
   const path = resolve(options.cwd ?? process.cwd(), file);
@@ -201,17 +241,17 @@ async function fileStream(file: string, options: SourceOptions): Promise<RawStre
       return { chunks: stream, totalBytes: size, pool: null, close: () => stream.destroy() };
     }
     const pool = poolFor(chunkSize);
-    const state: InFlight = { buf: null, settled: Promise.resolve() };
+    const state: InFlight = new Map();
     let closed = false;
     const close = (): void => {
       if (closed) return;
       closed = true;
-      // A read may still be under way: once it has settled, its buffer (read for nobody) goes back
+      // Reads may still be under way: once they have settled, their buffers (read for nobody) go back
       // to the pool and the handle is closed.
-      const ahead = state.buf;
-      void state.settled
+      const pending = [...state];
+      void Promise.all(pending.map(([settled]) => settled))
         .then(() => {
-          if (ahead !== null) pool.release(ahead);
+          for (const [, buf] of pending) pool.release(buf);
           return handle.close();
         })
         .catch(() => undefined);
