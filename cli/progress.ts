@@ -1,7 +1,8 @@
 // A progress bar on stderr while a big input is read: bytes, rows and rate, drawn by cli-progress.
 // Silent unless stderr is a terminal and the input is over a few megabytes; updates are throttled so
 // the reading loop pays one clock read per callback at most.
-import cliProgress from 'cli-progress';
+import { createRequire } from 'node:module';
+import type cliProgress from 'cli-progress';
 import type { CliIO } from './io.js';
 
 /** Inputs smaller than this read too fast for a bar to help (4 MiB). */
@@ -61,17 +62,29 @@ function formatLine(options: cliProgress.Options, params: cliProgress.Params, pa
   const rows = payload.rows === undefined ? '' : ` · ${groupDigits(payload.rows)} rows`;
   const label = payload.label ? `${payload.label} ` : '';
   if (!payload.known) return `${label}${formatBytes(payload.bytes)} read${rows} · ${rate}`;
-  const bar = cliProgress.Format.BarFormat(params.progress, options);
+  const bar = progressLibrary().Format.BarFormat(params.progress, options);
   const pct = `${Math.floor(params.progress * 100)}%`.padStart(4);
   return `${label}${bar} ${pct} ${formatBytes(payload.bytes)} of ${formatBytes(payload.total)}${rows} · ${rate}`;
 }
 
+/**
+ * cli-progress, loaded when a bar is first drawn: it loads Node's readline, which a run with no bar (not a
+ * terminal, or a small input) then never pays for.
+ */
+let library: typeof cliProgress | undefined;
+function progressLibrary(): typeof cliProgress {
+  return (library ??= createRequire(import.meta.url)('cli-progress') as typeof cliProgress);
+}
+
 /** A bar whose redraw timer never keeps the process alive, so a read that throws cannot hang the CLI. */
-class UnrefBar extends cliProgress.SingleBar {
-  override render(): void {
-    super.render();
-    (this as unknown as { timer?: { unref?: () => void } }).timer?.unref?.();
-  }
+function unrefBar(options: cliProgress.Options): cliProgress.SingleBar {
+  const bar = new (progressLibrary().SingleBar)(options);
+  const render = bar.render.bind(bar);
+  bar.render = (): void => {
+    render();
+    (bar as unknown as { timer?: { unref?: () => void } }).timer?.unref?.();
+  };
+  return bar;
 }
 
 const SILENT: Progress = { onProgress: () => {}, stop: () => {}, active: false };
@@ -87,7 +100,7 @@ export function makeProgress(io: CliIO, totalBytes?: number, options: ProgressOp
   const now = options.now ?? Date.now;
   const sized = (n: number | undefined): n is number => n !== undefined && Number.isFinite(n) && n > 0;
   if (sized(totalBytes) && totalBytes < minBytes) return SILENT;
-  let bar: UnrefBar | undefined;
+  let bar: cliProgress.SingleBar | undefined;
   let last = -Infinity;
   let stopped = false;
   const payload: Payload = { label: options.label ?? '', known: false, rows: undefined, bytes: 0, total: 0, start: now(), now };
@@ -105,7 +118,7 @@ export function makeProgress(io: CliIO, totalBytes?: number, options: ProgressOp
         if (size !== undefined ? size < minBytes : bytesRead < minBytes) return;
         payload.known = size !== undefined;
         payload.total = size ?? 0;
-        bar = new UnrefBar({
+        bar = unrefBar({
           stream: io.stderr as unknown as NodeJS.WritableStream,
           format: formatLine as unknown as cliProgress.Options['format'],
           fps: 1000 / REDRAW_MS,

@@ -4,7 +4,8 @@
 // (dist/workers, made by cli/bundle.mjs), which start in about half the time of the compiled modules.
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { Worker } from 'node:worker_threads';
+import { createRequire } from 'node:module';
+import type { Worker } from 'node:worker_threads';
 import type { FromWorker, WorkerSetup } from './messages.js';
 import { isSourceModule, siblingModule } from './module-url.js';
 
@@ -73,8 +74,15 @@ export function bundledWorker(importMetaUrl: string, name: string): URL | null {
   return existsSync(fileURLToPath(url)) ? url : null;
 }
 
+let workerThreads: typeof import('node:worker_threads') | undefined;
+/** node:worker_threads' Worker, loaded on first use (loading it cost every run about 3 ms of start-up). */
+export function workerClass(): typeof Worker {
+  return (workerThreads ??= createRequire(import.meta.url)('node:worker_threads') as typeof import('node:worker_threads')).Worker;
+}
+
 /** A range worker: the bundled one, the compiled worker entry, or the TypeScript source through tsx (tests). */
 function spawnWorker(setup: WorkerSetup): Worker {
+  const Worker = workerClass();
   const here = import.meta.url;
   const bundled = bundledWorker(here, 'range-worker');
   if (bundled !== null) return new Worker(bundled, { workerData: setup });

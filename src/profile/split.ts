@@ -2,10 +2,10 @@
 // columns while the main thread reads it for the others and the table's shape. Both halves are
 // exact (each column is read whole, in order, by one accumulator), so no merge is needed; the cost is a
 // second tokenizing pass, paid on another core.
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
 import { QuernError, type ErrorCode } from '../errors.js';
 import type { TableOptions } from '../table/types.js';
-import { bundledWorker } from '../parallel/workers.js';
+import { bundledWorker, workerClass } from '../parallel/workers.js';
 import type { ColumnsJob, ColumnsResult } from './columns-task.js';
 
 /** Smallest plain file whose columns are split between threads. */
@@ -89,6 +89,7 @@ type WorkerReply =
 
 /** The worker: the binary's bundled one, column-worker.js from dist, or the TypeScript source through tsx (tests). */
 function spawn(job: ColumnsJob): Worker {
+  const Worker = workerClass();
   const here = import.meta.url;
   const bundled = bundledWorker(here, 'column-worker');
   if (bundled !== null) return new Worker(bundled, { workerData: job });
