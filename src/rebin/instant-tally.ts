@@ -27,7 +27,7 @@ const I_INDEX = 4, I_PERIODS = 5, I_MIN = 6, I_MIN_REC = 7, I_MAX = 8, I_MAX_REC
 const I_MEMO_TAIL = 20;
 const F_LO = 0, F_HI = 1, F_MISS = 8;
 /** Why `tally` stopped (TALLY+40). */
-const enum Why { Done = 0, Shape = 1, Outside = 2, NewOffset = 3 }
+const enum Why { Done = 0, Shape = 1, Outside = 2, NewOffset = 3, Width = 4 }
 /** Offsets noted once every offset is taken (the scan notes no more than four). */
 const EVERY_OFFSET = 5;
 /** Periods laid on each side of the first instant, and the refusals after which the tally stops. */
@@ -36,7 +36,7 @@ const REFUSALS = 256;
 
 /** One thread's tally module, on its kernel's memory, and the tally whose table is loaded. */
 interface TallyModule {
-  tally(from: number, n: number, stride: number, field: number, base: number): number;
+  tally(from: number, n: number, stride: number, field: number, base: number, width: number): number;
   i32: Int32Array;
   f64: Float64Array;
   starts: Float64Array;
@@ -102,7 +102,7 @@ export class InstantTally implements KernelTally {
 
   constructor(private readonly scope: TallyScope) {}
 
-  take(kernel: RecordKernel, buf: Buffer, from: number, n: number, stride: number, slot: number, base: number, line: number): number {
+  take(kernel: RecordKernel, buf: Buffer, from: number, n: number, stride: number, slot: number, base: number, line: number, width = -1): number {
     const m = this.module ?? (this.module = tallyModule(kernel));
     if (m === null) {
       this.active = false;
@@ -112,10 +112,13 @@ export class InstantTally implements KernelTally {
     this.noteOffsets(m);
     let r = from;
     for (;;) {
-      const t = m.tally(r, n, stride, 8 + 8 * slot, base);
+      const t = m.tally(r, n, stride, 8 + 8 * slot, base, width);
       if (t > r) this.counted(m, kernel.output, buf, r, t, stride, slot, line + (r - from));
       if (t >= n) return t;
-      if (m.i32[I_WHY] === Why.Outside && this.lay(m, m.f64[F_MISS]!)) {
+      const why = m.i32[I_WHY];
+      // Not a whole row: the reader's to read, and no refusal of the tally's.
+      if (why === Why.Width) return t;
+      if (why === Why.Outside && this.lay(m, m.f64[F_MISS]!)) {
         r = t;
         continue;
       }

@@ -14,7 +14,7 @@
 ;;   +16 i32 its index          +20 i32 P, the periods in the table
 ;;   +24 i32 least index counted in this call, +28 its record; +32 greatest index, +36 its record
 ;;   +40 i32 why it stopped: 0 every record counted, 1 not an instant it reads, 2 outside the table,
-;;       3 an offset not noted yet
+;;       3 an offset not noted yet, 4 a record whose field count is not `width`
 ;;   +44 i32 offsets noted (0 to 4; 5: every offset is taken), +48 i32 × 4 the noted offsets (minutes)
 ;;   +64 f64 the instant outside the table (why 2)
 ;;   +72 i32 × 3 the date memo: bytes 0–3, 4–7 and 8–9 of the last date read, +84 i32 its day number
@@ -24,8 +24,9 @@
   (import "kernel" "memory" (memory 89))
 
   ;; Counts the records from..n-1 of OUTPUT (`stride` i32 each; the time field's start at byte `field` of
-  ;; a block); returns the first it did not count (n when it counted them all), why at TALLY+40.
-  (func (export "tally") (param $from i32) (param $n i32) (param $stride i32) (param $field i32) (param $base i32) (result i32)
+  ;; a block; each as wide as `width` fields, unless it is -1); returns the first it did not count (n when
+  ;; it counted them all), why at TALLY+40.
+  (func (export "tally") (param $from i32) (param $n i32) (param $stride i32) (param $field i32) (param $base i32) (param $width i32) (result i32)
     (local $o i32) (local $step i32) (local $s i32) (local $e i32) (local $why i32)
     (local $days i32) (local $clock i32) (local $p i32) (local $c i32) (local $j i32) (local $bad i32)
     (local $y i32) (local $mo i32) (local $d i32) (local $h i32) (local $mi i32) (local $se i32) (local $off i32)
@@ -49,6 +50,10 @@
     (block $stop
       (loop $next
         (br_if $stop (i32.ge_u (local.get $from) (local.get $n)))
+        ;; A record not as wide as the header (when `width` is not -1) is not a whole row: why 4.
+        (local.set $why (i32.const 4))
+        (br_if $stop (i32.and (i32.ge_s (local.get $width) (i32.const 0))
+                              (i32.ne (i32.load offset=4 (i32.sub (local.get $o) (local.get $field))) (local.get $width))))
         (local.set $why (i32.const 1))
         (local.set $s (i32.sub (i32.load (local.get $o)) (local.get $base)))
         (local.set $e (i32.sub (i32.load offset=4 (local.get $o)) (local.get $base)))

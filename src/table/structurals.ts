@@ -106,10 +106,12 @@ export interface KernelTally {
   /** False once it takes no more records: the reader then hands them all on as batches. */
   readonly active: boolean;
   /**
-   * Counts what it can of OUTPUT's records from..n-1, which are whole rows of the header's width on the
-   * consecutive lines from `line`, whose wanted field `slot` is the field it reads (input byte i being
-   * byte `base` + i of `buf`); returns the first record it did not count, or n. The reader hands that
-   * record on as a batch row and calls again from the next.
+   * Counts what it can of OUTPUT's records from..n-1, on the consecutive lines from `line`, whose wanted
+   * field `slot` is the field it reads (input byte i being byte `base` + i of `buf`); returns the first
+   * record it did not count, or n. The records are whole rows of the header's width, or, when `width` is
+   * given, records it counts only when they have `width` fields (it stops at the first that has not). The
+   * reader hands the record it stopped at on (as a batch row, or as a row of another width) and calls
+   * again from the next.
    */
-  take(kernel: RecordKernel, buf: Buffer, from: number, n: number, stride: number, slot: number, base: number, line: number): number;
+  take(kernel: RecordKernel, buf: Buffer, from: number, n: number, stride: number, slot: number, base: number, line: number, width?: number): number;
 }
