@@ -3,16 +3,12 @@
 // JavaScript copy through DataViews measured about 48 ns against about 10 ns here (CPU profiles of a
 // 10M-row `quern bucket --edges` run).
 import { ROW_GATHER_WASM } from './row-gather-wasm.js';
+import { wasmApi, type WasmApi } from '../table/structurals.js';
 
 const PAGE = 65_536;
 /** Room left past each region for the eight-byte moves that run over their end. */
 const SLACK = 16;
 
-/** The little of the WebAssembly JavaScript API used here (ES2022's lib, without the DOM, omits it). */
-interface WasmApi {
-  Module: new (bytes: Uint8Array) => object;
-  Instance: new (module: object, imports: object) => { exports: Record<string, unknown> };
-}
 interface Memory { buffer: ArrayBuffer; grow(pages: number): number }
 type Gather = (n: number, firsts: number, lasts: number, ks: number, table: number, none: number, base: number, out: number) => number;
 type Formulas = (n: number, firsts: number, lasts: number, base: number, flags: number) => number;
@@ -88,7 +84,7 @@ export class RowGather {
    * WebAssembly is missing (the caller copies in JavaScript).
    */
   static make(suffixes: readonly Uint8Array[]): RowGather | null {
-    const wasm = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
+    const wasm = wasmApi();
     if (wasm === undefined || suffixes.length === 0) return null;
     const module = gatherModule(wasm);
     if (module === null) return null;

@@ -11,7 +11,7 @@
 // it has counted as many rows as it holds periods (each move flushes its counts into the cell store).
 import type { Calendar } from '../calendar/types.js';
 import { asciiString } from '../table/ascii.js';
-import type { KernelTally, RecordKernel } from '../table/structurals.js';
+import { wasmApi, type KernelTally, type RecordKernel } from '../table/structurals.js';
 import type { CellStore } from './accumulate.js';
 import type { KeyExtremes } from './fill.js';
 import { emptyExtremes } from './fill.js';
@@ -46,18 +46,12 @@ interface TallyModule {
 
 const modules = new WeakMap<RecordKernel, TallyModule | null>();
 
-/** The little of the WebAssembly JavaScript API used here (ES2022's lib, without the DOM, omits it). */
-interface WasmApi {
-  Module: new (bytes: Uint8Array) => object;
-  Instance: new (module: object, imports: object) => { exports: Record<string, unknown> };
-}
-
 /** The tally module of `kernel`'s thread, made on first use; null where it cannot be made. */
 function tallyModule(kernel: RecordKernel): TallyModule | null {
   let m = modules.get(kernel);
   if (m !== undefined) return m;
   try {
-    const wasm = (globalThis as { WebAssembly?: WasmApi }).WebAssembly!;
+    const wasm = wasmApi()!;
     const instance = new wasm.Instance(new wasm.Module(Buffer.from(INSTANT_TALLY_WASM, 'base64')), { kernel: { memory: kernel.memory } });
     const memory = (kernel.memory as { buffer: ArrayBuffer }).buffer;
     m = {

@@ -49,10 +49,15 @@ export interface RecordKernel {
 
 let shared: RecordKernel | null | undefined;
 
-/** The little of the WebAssembly JavaScript API used here (ES2022's lib, without the DOM, omits it). */
-interface WasmApi {
+/** The little of the WebAssembly JavaScript API quern uses (ES2022's lib, without the DOM, omits it). */
+export interface WasmApi {
   Module: new (bytes: Uint8Array) => object;
   Instance: new (module: object, imports: object) => { exports: Record<string, unknown> };
+}
+
+/** The runtime's WebAssembly, or undefined where there is none. */
+export function wasmApi(): WasmApi | undefined {
+  return (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
 }
 
 /**
@@ -62,7 +67,7 @@ interface WasmApi {
  */
 export function recordKernel(): RecordKernel | null {
   if (shared !== undefined) return shared;
-  const wasm = (globalThis as { WebAssembly?: WasmApi }).WebAssembly;
+  const wasm = wasmApi();
   if (wasm === undefined) return (shared = null);
   try {
     const module = new wasm.Module(Buffer.from(STRUCTURALS_WASM, 'base64'));
