@@ -377,7 +377,7 @@ export class FastBody<B> {
           from = other + 1;
         }
         if (state[5] !== KernelStop.Spent) break;
-        span = spanEnd;
+        span = nextSpan(state, span, spanEnd, regionEnd);
         continue;
       }
       for (let r = 0, o = 0; r < n; r++, o += stride) {
@@ -398,7 +398,7 @@ export class FastBody<B> {
         record = end;
       }
       if (state[5] !== KernelStop.Spent) break;
-      span = spanEnd;
+      span = nextSpan(state, span, spanEnd, regionEnd);
     }
     this.line = line;
     this.passed += passed;
@@ -496,4 +496,21 @@ function firstBadField(buf: Buffer, scanner: CsvScanner): number {
     if (!isUtf8(buf.subarray(scanner.starts[k], scanner.ends[k]))) return k;
   }
   return -1;
+}
+
+/**
+ * Where the kernel's next span begins, once it has spent span..spanEnd: at the start of the record left
+ * unfinished, walked again from its first byte with STATE set as at any record start, so that every
+ * record that fits in a span lies whole in one (the instant tally reads only fields inside its span, and
+ * left the record across each 64 KiB boundary to the batch path: 5,192 rows of the benchmark's 10M).
+ * A record longer than the span, and the region's last, are carried on in STATE as they are.
+ */
+function nextSpan(state: Int32Array, span: number, spanEnd: number, regionEnd: number): number {
+  const rest = state[0]!;
+  if (rest <= span || spanEnd >= regionEnd) return spanEnd;
+  state[1] = rest; // field start
+  state[2] = 0; // field number
+  state[4] = 0; // wanted slot
+  state[6] = 0; // outside quotes
+  return rest;
 }
