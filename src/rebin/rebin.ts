@@ -139,7 +139,8 @@ async function scanBytes(reader: TableReader, columns: readonly string[], make: 
   };
   // Once the first rows are scanned no batch is kept: the reader may reuse its buffers.
   // From then on, a count of instants may be tallied straight from the record kernel (RebinScan.startTally).
-  const read: { transient: boolean; tally: KernelTally | null } = { transient: false, tally: null };
+  // The first buffer's rows come at once (`early`), so the tally is there from the second buffer on.
+  const read: { transient: boolean; tally: KernelTally | null; early: boolean } = { transient: false, tally: null, early: true };
   for await (const b of reader.byteBatches([columns[0]!], columns.slice(1), read)) {
     if (ready !== null) {
       ready.scan.bytes(b, view(b));

@@ -27,6 +27,8 @@ async function* fastCsvRead<B>(ctx: BodyContext, sink: RowSink<B>): AsyncGenerat
   // The buffer read in the previous turn: once the next is in hand (its carried tail copied), and the
   // consumer has asked for more, nothing views it any more when the consumer's batches are transient.
   let spent: Buffer | null = null;
+  // With `read.early`, the first buffer's rows are handed on as soon as it is walked (ByteReadOptions).
+  let first = ctx.read.early === true;
   for (;;) {
     if (offset >= end) {
       // A byte range's last record is read: stop before reading on.
@@ -50,7 +52,8 @@ async function* fastCsvRead<B>(ctx: BodyContext, sink: RowSink<B>): AsyncGenerat
       offset += pos;
       if (pos < buf.length) carry = buf.subarray(pos);
     }
-    for (const b of sink.take(final)) yield b;
+    for (const b of sink.take(final || first)) yield b;
+    first = false;
     if (final) break;
   }
   // The last batches are consumed: the last buffer is free too.

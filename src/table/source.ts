@@ -156,7 +156,7 @@ type InFlight = Map<Promise<unknown>, Buffer>;
  * benchmark's file (rebin on 10M rows: 0.511 s against 0.519 s with a first read of 1 MiB, medians of 11
  * runs interleaved).
  */
-const FIRST_READ = 1 << 17;
+export const FIRST_READ = 1 << 17;
 
 /** Chunks of a regular file read into pooled buffers, with the next reads already under way. */
 function pooledReads(handle: FileHandle, pool: BufferPool, position: number, state: InFlight): AsyncIterable<Buffer> {

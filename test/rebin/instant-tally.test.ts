@@ -17,6 +17,7 @@ import { INSTANT_TALLY_WASM } from '../../src/rebin/instant-tally-wasm.js';
 import type { RebinOptions } from '../../src/rebin/types.js';
 import { recordKernel } from '../../src/table/structurals.js';
 import { openTable } from '../../src/table/index.js';
+import { FIRST_READ } from '../../src/table/source.js';
 import { fastIsoBytes } from '../../src/time/iso-bytes.js';
 import { emptyParsedTime } from '../../src/time/types.js';
 import { seeded, tableFile } from './helpers.js';
@@ -235,6 +236,31 @@ describe('rebin with the instant tally is rebin without it', () => {
     expect(fa.rows).toEqual((await rebinFile(plain, a, 'reference')).rows);
     expect(fb.rows).toEqual((await rebinFile(crlf, b, 'reference')).rows);
     expect(fa.summary.rowsUsed + fa.summary.rowsEmpty + fa.summary.rowsRejected).toBe(12_000);
+  });
+
+  it('counts every row after the first read, records across the kernel\'s 64 KiB spans included', async () => {
+    // The first read's rows settle the formats and go the ordinary way; from the next read on, the tally
+    // is there (the first batch is handed on as soon as its read is walked), and no row crosses a span
+    // (each span begins at the record the last one left unfinished), so it counts every later row.
+    for (const eol of ['\n', '\r\n']) {
+      const rnd = seeded(eol.length);
+      const rows = Array.from({ length: 40_000 }, (_, i) =>
+        `${new Date(Date.UTC(2024, 0, 1) + i * 60_000).toISOString().slice(0, 19)}Z,${'s'.repeat(Math.floor(rnd() * 20))},${i}`);
+      const text = ['ts,site,n', ...rows].join(eol) + eol;
+      let inFirst = 0;
+      for (let at = text.indexOf(eol) + eol.length, r = 0; r < rows.length; r++) {
+        at += rows[r]!.length + eol.length;
+        if (at <= FIRST_READ) inFirst++;
+      }
+      const file = tableFile(text);
+      const finish = vi.spyOn(InstantTally.prototype, 'finish');
+      const options: RebinOptions = { time: 'ts', calendar: { unit: 'hour' }, aggregates: parseAggSpecs(['count']), fill: false };
+      const fast = await rebinFile(file, options, 'fast');
+      expect(fast.rows).toEqual((await rebinFile(file, options, 'reference')).rows);
+      expect(inFirst).toBeGreaterThan(2_000);
+      expect(finish.mock.results.map((r) => r.value)).toEqual([rows.length - inFirst]);
+      finish.mockRestore();
+    }
   });
 
   it('is not used for groups or measures, and stops after many values it cannot read', async () => {
