@@ -1,8 +1,9 @@
 #!/usr/bin/env node
 // `npm run bench`: generates event files into a temporary folder (never committed), then times each
-// approach on them in one run and prints a table of wall time, MB/s, rows/s, peak memory and ratios.
+// approach on them in one run, in rounds (each approach once a round; the median of each is shown), and
+// prints a table of wall time, MB/s, rows/s, peak memory and ratios.
 //
-//   node test/bench/run.mjs [--sizes 1000000,10000000] [--repeat 3] [--skip duckdb,naive,quoted] [--only rebin]
+//   node test/bench/run.mjs [--sizes 1000000,10000000] [--repeat 5] [--skip duckdb,naive,quoted] [--only rebin]
 //                           [--cli path/to/quern.cjs] [--keep] [--keep-env]
 //
 // Needs the built CLI (`npm run build`). Peak memory is the child's maximum resident set size as
@@ -28,7 +29,7 @@ const opt = (name, dflt) => {
 };
 const cli = opt('cli', join(root, 'dist', 'quern.cjs'));
 const sizes = opt('sizes', '1000000,10000000').split(',').map(Number);
-const repeat = Number(opt('repeat', '3'));
+const repeat = Number(opt('repeat', '5'));
 const skip = new Set(opt('skip', '').split(',').filter(Boolean));
 const keep = args.includes('--keep');
 const only = opt('only', '');
@@ -185,14 +186,25 @@ for (const rows of sizes) {
     generate(quotedFile, rows, true);
   }
   const all = [...runs0.map((a) => ({ ...a, file, mb })), ...(quotedFile === null ? [] : quotedApproaches(quotedFile, rows).map((a) => ({ ...a, file: quotedFile, mb: statSync(quotedFile).size / 1e6 })))];
-  for (const a of all) {
-    const runs = [];
-    try {
-      for (let i = 0; i < (a.once ? 1 : repeat); i++) runs.push(timed(...a.run));
-    } catch (e) {
-      process.stderr.write(`bench: ${a.name}: ${e.message}\n`);
-      continue;
+  // Rounds: each approach runs once a round, in the same order, so that a machine that slows down or
+  // speeds up during the run shifts every approach alike and the ratios of the medians hold.
+  const runsOf = all.map(() => []);
+  const failed = new Set();
+  for (let i = 0; i < repeat; i++) {
+    process.stderr.write(`  round ${i + 1} of ${repeat}\n`);
+    for (const [k, a] of all.entries()) {
+      if (failed.has(k) || (a.once && i > 0)) continue;
+      try {
+        runsOf[k].push(timed(...a.run));
+      } catch (e) {
+        process.stderr.write(`bench: ${a.name}: ${e.message}\n`);
+        failed.add(k);
+      }
     }
+  }
+  for (const [k, a] of all.entries()) {
+    if (failed.has(k)) continue;
+    const runs = runsOf[k];
     const wall = median(runs.map((r) => r.wall));
     const rss = Math.max(...runs.map((r) => r.rss));
     const cpu = median(runs.map((r) => r.cpu));
@@ -242,7 +254,8 @@ const widths = header.map((h, c) => Math.max(h.length, ...table.map((row) => Str
 console.log(`\nquern benchmark — ${machine}`);
 console.log(header.map((h, c) => (c === 0 ? pad(h, widths[c]) : lpad(h, widths[c]))).join(''));
 for (const row of table) console.log(row.map((v, c) => (c === 0 ? pad(v, widths[c]) : lpad(v, widths[c]))).join(''));
-const notes = droppedEnv.length > 0 ? [`child processes ran without ${droppedEnv.join(', ')} (set on this machine; see the top of test/bench/run.mjs), every approach alike`] : [];
+const notes = [`times are medians of ${repeat} rounds, each approach once a round (the naive script once)`];
+if (droppedEnv.length > 0) notes.push(`child processes ran without ${droppedEnv.join(', ')} (set on this machine; see the top of test/bench/run.mjs), every approach alike`);
 for (const c of checks) console.log(`check: ${c}`);
 for (const n of notes) console.log(`note: ${n}`);
 const md = [`quern benchmark — ${machine}`, '', `| ${header.join(' | ')} |`, `|${header.map((_, c) => (c === 0 ? ' --- ' : ' ---: ')).join('|')}|`,
