@@ -14,6 +14,7 @@ import { openTable } from '../../src/table/index.js';
 import type { ReadSummary, TableOptions } from '../../src/table/index.js';
 import type { Diagnostic } from '../../src/errors.js';
 import { readAll, tempDir, type ReadResult } from './helpers.js';
+import { seeded } from '../helpers/seeded.js';
 
 const tmp = tempDir();
 afterAll(() => tmp.cleanup());
@@ -225,8 +226,7 @@ describe('openTable(file, { byteRange }) split at line breaks, against one whole
   it('reads a 2 MB file in 7 ranges alike through batches and byteBatches, records crossing chunk ends', async () => {
     // Seeded rows with quoted CRLF, doubled quotes, unicode, ragged rows and now and then a 100 KB field
     // (longer than the fast path's 64 KiB bridge between chunks), read in 50 000-byte chunks.
-    let seed = 11;
-    const rnd = (): number => ((seed = (seed * 1103515245 + 12345) >>> 0) / 2 ** 32);
+    const rnd = seeded(11);
     const rows = ['id,ts,note'];
     let size = 0;
     for (let i = 0; size < 2_000_000; i++) {

@@ -6,6 +6,7 @@ import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
 import type { TableEngine } from '../../src/table/index.js';
 import { readAll, tempDir, type ReadResult } from './helpers.js';
+import { seeded } from '../helpers/seeded.js';
 
 const tmp = tempDir();
 afterAll(() => tmp.cleanup());
@@ -156,8 +157,7 @@ describe('fast path vs reference path (csv-parse) on generated files', () => {
   it('read a 3 MB file alike when records cross chunk boundaries of every kind', async () => {
     // Seeded rows with quoted line breaks, doubled quotes, unicode, ragged rows and now and then a
     // 100 KB field (longer than the fast path's 64 KiB bridge between chunks), in 100 000-byte chunks.
-    let seed = 7;
-    const rnd = (): number => ((seed = (seed * 1103515245 + 12345) >>> 0) / 2 ** 32);
+    const rnd = seeded(7);
     const rows = ['id,ts,note'];
     let size = 0;
     for (let i = 0; size < 3_000_000; i++) {
@@ -181,8 +181,7 @@ describe('fast path vs reference path (csv-parse) on generated files', () => {
     // (src/table/fast-body.ts, nextSpan). Short rows of seeded lengths put span ends in every part of a
     // record: in a field, on a delimiter, between a CR and its LF, inside a quoted field with a comma; now
     // and then a field longer than a span is carried on. Default 1 MiB chunks, so spans lie inside a chunk.
-    let seed = 31;
-    const rnd = (): number => ((seed = (seed * 1103515245 + 12345) >>> 0) / 2 ** 32);
+    const rnd = seeded(31);
     for (const eol of ['\r\n', '\n', '\r']) {
       const rows = ['id,ts,note'];
       let size = 0;

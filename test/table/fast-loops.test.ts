@@ -8,6 +8,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import type { TableOptions } from '../../src/table/index.js';
 import { readAll, readAllBytes, tempDir, type ReadResult } from './helpers.js';
+import { seeded } from '../helpers/seeded.js';
 
 const tmp = tempDir();
 afterAll(() => tmp.cleanup());
@@ -16,10 +17,9 @@ afterAll(() => tmp.cleanup());
 // delimiter inside, empty), now and then with what it leaves to the scanner.
 type Quotes = 'none' | 'sparse' | 'dense' | 'all' | 'simple';
 
-/** A seeded body of about `size` bytes (a simple LCG, so every run builds the same file). */
+/** A seeded body of about `size` bytes (test/helpers/seeded.ts, so every run builds the same file). */
 function body(delimiter: string, end: string, quotes: Quotes, seed: number, size = 150_000): Buffer {
-  let s = seed;
-  const rnd = (): number => ((s = (s * 1103515245 + 12345) >>> 0) / 2 ** 32);
+  const rnd = seeded(seed);
   const d = delimiter;
   const parts: Buffer[] = [Buffer.from(['ts', 'site', 'age', 'note'].join(d) + end)];
   let total = 0;
