@@ -3,7 +3,8 @@
 ;; UTC designator or an offset (YYYY-MM-DD[T ]HH:MM:SS[.f…](Z|±HH:MM), what the JavaScript lane of
 ;; src/time/iso-bytes.ts reads as an instant, with the same checks), its period found in a table of period
 ;; starts, and that period's count raised by one. A record it cannot count so (any other shape, a field
-;; begun in an earlier span, an instant outside the table, an offset not yet noted) stops it; the caller
+;; begun in an earlier span (only in a record longer than a span: the reader begins each span at a record),
+;; an instant outside the table, an offset not yet noted) stops it; the caller
 ;; hands that record to the ordinary path and calls again from the next one.
 ;; Compiled by `npm run wasm` into instant-tally-wasm.ts; test/wasm holds it to src/time/iso-bytes.ts.
 ;;
@@ -57,7 +58,8 @@
         (local.set $why (i32.const 1))
         (local.set $s (i32.sub (i32.load (local.get $o)) (local.get $base)))
         (local.set $e (i32.sub (i32.load offset=4 (local.get $o)) (local.get $base)))
-        ;; A field begun in an earlier span is no longer in the input; a value under 20 bytes is no instant.
+        ;; A field begun in an earlier span (a record longer than the span) is no longer in the input; a value
+        ;; under 20 bytes is no instant.
         (br_if $stop (i32.lt_s (local.get $s) (i32.const 0)))
         (br_if $stop (i32.lt_s (i32.sub (local.get $e) (local.get $s)) (i32.const 20)))
         ;; The date: the memo's day number when its ten bytes are the last date's.
